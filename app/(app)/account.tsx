@@ -1,0 +1,1 @@
+export { AccountScreen as default } from "@/components/account/account-screen";

@@ -1,0 +1,1 @@
+export { SitesScreen as default } from "@/components/sites/sites-screen";

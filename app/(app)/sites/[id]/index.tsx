@@ -1,0 +1,1 @@
+export { SiteRoomsScreen as default } from "@/components/site/site-rooms-screen";

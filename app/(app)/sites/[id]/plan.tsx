@@ -1,0 +1,1 @@
+export { SitePlanScreen as default } from "@/components/site/site-plan-screen";

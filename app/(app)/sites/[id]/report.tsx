@@ -1,0 +1,1 @@
+export { SiteReportScreen as default } from "@/components/site/site-report-screen";

@@ -1,0 +1,1 @@
+export { SyncScreen as default } from "@/components/sync/sync-screen";

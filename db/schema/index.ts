@@ -1,0 +1,3 @@
+export * from "./enums";
+export * from "./teams";
+export * from "./sites";

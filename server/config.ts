@@ -1,0 +1,52 @@
+import path from "node:path";
+import * as v from "valibot";
+
+const port = v.pipe(
+  v.optional(v.string(), "8080"),
+  v.transform(Number),
+  v.integer("PORT must be a whole number."),
+  v.minValue(0, "PORT must be 0–65535."),
+  v.maxValue(65535, "PORT must be 0–65535."),
+);
+
+const EnvSchema = v.object({
+  PORT: port,
+  HOST: v.optional(v.string(), "127.0.0.1"),
+  DATABASE_URL: v.optional(v.pipe(v.string(), v.url("DATABASE_URL must be a postgres:// URL."))),
+  PUBLIC_ORIGIN: v.optional(v.pipe(v.string(), v.url("PUBLIC_ORIGIN must be a URL such as https://dropwise.example.org."))),
+  WEB_DIST: v.optional(v.string()),
+  NODE_ENV: v.optional(v.string(), "development"),
+});
+
+export interface ServerConfig {
+  port: number;
+  host: string;
+  databaseUrl: string;
+  /** The origin users reach us at; sign-in links are built from it, never from a request's Host. */
+  publicOrigin: string;
+  webDist: string;
+  production: boolean;
+  version: string;
+}
+
+export const projectRoot = path.resolve(import.meta.dirname, "..");
+
+export function readConfig(env: Record<string, string | undefined> = process.env, overrides: Partial<ServerConfig> = {}): ServerConfig {
+  const parsed = v.safeParse(EnvSchema, env);
+  if (!parsed.success) {
+    const messages = parsed.issues.map((i) => i.message).join(" ");
+    throw new Error(`Configuration is not valid: ${messages}`);
+  }
+  const e = parsed.output;
+  const portValue = overrides.port ?? e.PORT;
+  const host = overrides.host ?? e.HOST;
+  return {
+    port: portValue,
+    host,
+    databaseUrl: overrides.databaseUrl ?? e.DATABASE_URL ?? "",
+    publicOrigin: (overrides.publicOrigin ?? e.PUBLIC_ORIGIN ?? `http://${host}:${portValue}`).replace(/\/$/, ""),
+    webDist: overrides.webDist ?? e.WEB_DIST ?? path.join(projectRoot, "dist"),
+    production: (overrides.production ?? e.NODE_ENV === "production") as boolean,
+    version: overrides.version ?? process.env.npm_package_version ?? "0.1.0",
+  };
+}

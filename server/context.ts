@@ -1,0 +1,10 @@
+import type { Db } from "../db/client";
+import type { ServerConfig } from "./config";
+import type { Logger } from "./logger";
+
+/** What every router gets: built once at start-up, no global state. */
+export interface AppContext {
+  db: Db;
+  config: ServerConfig;
+  logger: Logger;
+}

@@ -1,0 +1,30 @@
+import fs from "node:fs";
+import path from "node:path";
+import express, { Router } from "express";
+
+/** Serves the exported web build, with the single-page fallback for client-side routes. */
+export function webRouter(distDir: string) {
+  const router = Router();
+  const indexFile = path.join(distDir, "index.html");
+  router.use(
+    express.static(distDir, {
+      index: false,
+      setHeaders(res, file) {
+        // Hashed bundles never change; the shell page must always be fresh.
+        if (/[\\/]_expo[\\/]/.test(file) || /[\\/]assets[\\/]/.test(file)) {
+          res.setHeader("Cache-Control", "public, max-age=31536000, immutable");
+        }
+      },
+    }),
+  );
+  router.get("/{*splat}", (req, res, next) => {
+    if (req.path.startsWith("/api/") || req.path.startsWith("/auth/")) return next();
+    if (!fs.existsSync(indexFile)) {
+      res.status(503).type("text").send("The web app has not been built yet. Run `npm start`, which builds it.");
+      return;
+    }
+    res.setHeader("Cache-Control", "no-cache");
+    res.sendFile(indexFile);
+  });
+  return router;
+}

@@ -160,3 +160,9 @@ export async function ensureDatabase(cluster: Cluster, name: string): Promise<vo
     await client.end();
   }
 }
+
+/** A free loopback port, searched from a random point in [from, from + spread). */
+export async function findFreePort(from: number, spread = 2000): Promise<number> {
+  for (let port = from + Math.floor(Math.random() * spread); port < 65535; port++) if (await portIsFree(port)) return port;
+  throw new ClusterError(`No free port found above ${from}.`);
+}

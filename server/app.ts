@@ -1,14 +1,39 @@
 import { randomUUID } from "node:crypto";
+import { ExpressAuth } from "@auth/express";
 import express from "express";
+import { rateLimit } from "express-rate-limit";
 import { pinoHttp } from "pino-http";
+import { loadActor } from "./auth/actor";
+import { createAuthConfig } from "./auth/auth-config";
+import { pinHost } from "./auth/host-pin";
 import type { AppContext } from "./context";
-import { apiNotFound, errorHandler } from "./errors";
+import { HttpError, apiNotFound, errorHandler } from "./errors";
 import { crossOriginIsolation } from "./middleware/cross-origin-isolation";
+import { sameOriginWrites } from "./middleware/same-origin-writes";
 import { healthRouter } from "./routes/health";
+import { invitesRouter } from "./routes/invites";
+import { meRouter, sessionRouter } from "./routes/me";
+import { outboxRouter } from "./routes/outbox";
+import { sitesRouter } from "./routes/sites";
+import { teamRouter } from "./routes/team";
+import { requireSignedIn } from "./auth/actor";
 import { webRouter } from "./web";
+
+function limiter(limit: number, message: string) {
+  return rateLimit({
+    windowMs: 15 * 60 * 1000,
+    limit,
+    standardHeaders: "draft-8",
+    legacyHeaders: false,
+    handler: () => {
+      throw new HttpError(429, "too_many_attempts", message);
+    },
+  });
+}
 
 /** Builds the Express app; `listen` lives in server/index.ts so tests drive this same app. */
 export function createApp(ctx: AppContext) {
+  const { config } = ctx;
   const app = express();
   app.disable("x-powered-by");
   app.set("trust proxy", 1);
@@ -26,14 +51,38 @@ export function createApp(ctx: AppContext) {
     }),
   );
   app.use(crossOriginIsolation);
+  app.use(pinHost(config.publicOrigin));
+
+  const authConfig = createAuthConfig(ctx, ctx.mailer);
+  const signInLimiter = limiter(config.authRateLimit, "Too many sign-in attempts from this address. Wait 15 minutes and try again.");
+  app.post(["/auth/callback/credentials", "/auth/signin/nodemailer"], signInLimiter);
+  app.use("/auth", ExpressAuth(authConfig));
+
+  // Public API: no session needed.
+  const publicApi = express.Router();
+  publicApi.use(healthRouter(ctx));
+  publicApi.use(sessionRouter(ctx));
+  publicApi.use(limiter(config.authRateLimit * 3, "Too many attempts with invitation links. Wait 15 minutes and try again."), invitesRouter(ctx));
+
+  // Everything else needs a signed-in member; each route then asks survey/policy.ts.
+  const memberApi = express.Router();
+  memberApi.use(requireSignedIn);
+  memberApi.use(meRouter(ctx));
+  memberApi.use(sitesRouter(ctx));
+  memberApi.use(teamRouter(ctx));
+  memberApi.use(outboxRouter(ctx));
 
   const api = express.Router();
   api.use(express.json({ limit: "1mb" }));
-  api.use(healthRouter(ctx));
+  api.use(sameOriginWrites(config.publicOrigin));
+  api.use(loadActor(ctx, authConfig));
+  api.use(publicApi);
+  api.use(memberApi);
   api.use(apiNotFound);
   app.use("/api", api);
+  app.locals.apiRouters = { publicApi, memberApi };
 
-  app.use(webRouter(ctx.config.webDist));
+  app.use(webRouter(config.webDist));
   app.use(errorHandler);
   return app;
 }

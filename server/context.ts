@@ -1,10 +1,12 @@
 import type { Db } from "../db/client";
 import type { ServerConfig } from "./config";
 import type { Logger } from "./logger";
+import type { Mailer } from "./mail/mailer";
 
 /** What every router gets: built once at start-up, no global state. */
 export interface AppContext {
   db: Db;
   config: ServerConfig;
   logger: Logger;
+  mailer: Mailer;
 }

@@ -1,7 +1,9 @@
 import type { ErrorRequestHandler, RequestHandler } from "express";
 import * as v from "valibot";
 
-export type FieldErrors = Record<string, string[]>;
+import { check, type FieldErrors } from "../survey/validation";
+
+export type { FieldErrors };
 
 /** An error that is safe to show: its status, a stable code and a message that says what to fix. */
 export class HttpError extends Error {
@@ -19,18 +21,11 @@ export const notFound = (what = "That") => new HttpError(404, "not_found", `${wh
 
 /** Validates `input` against a shared valibot schema; a 400 names every bad field. */
 export function parseInput<S extends v.GenericSchema>(schema: S, input: unknown, what = "request body"): v.InferOutput<S> {
-  const result = v.safeParse(schema, input);
-  if (result.success) return result.output;
-  // A missing key comes out of valibot as "Invalid key: …"; say plainly what to fix instead.
-  const issues = result.issues.map((issue) =>
-    issue.input === undefined && issue.message.startsWith("Invalid key") ? { ...issue, message: "This field is required." } : issue,
-  ) as typeof result.issues;
-  const flat = v.flatten(issues);
-  const fields: FieldErrors = { ...(flat.nested as FieldErrors) };
-  if (flat.root?.length) fields._ = flat.root;
-  const first = Object.entries(fields)[0];
+  const result = check(schema, input);
+  if (result.ok) return result.value;
+  const first = Object.entries(result.errors)[0];
   const hint = first ? ` ${first[0] === "_" ? "" : `${first[0]}: `}${first[1][0]}` : "";
-  throw new HttpError(400, "invalid_input", `The ${what} is not valid.${hint}`, fields);
+  throw new HttpError(400, "invalid_input", `The ${what} is not valid.${hint}`, result.errors);
 }
 
 export const apiNotFound: RequestHandler = (req) => {
@@ -65,3 +60,10 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   if (res.headersSent) return;
   res.status(status).json({ error: body });
 };
+
+/** A route parameter as a string (Express types allow arrays for wildcard segments). */
+export function param(req: { params: Record<string, string | string[] | undefined> }, name: string): string {
+  const value = req.params[name];
+  if (typeof value !== "string" || value === "") throw new HttpError(400, "invalid_input", `The ${name} in the address is missing.`);
+  return value;
+}

@@ -5,19 +5,31 @@ import { createApp } from "./app";
 import type { ServerConfig } from "./config";
 import type { AppContext } from "./context";
 import { createLogger, type Logger } from "./logger";
+import { createMailer } from "./mail/mailer";
+import { startSmtpSink, type CapturedMail, type SmtpSink } from "./mail/smtp-sink";
 
 export interface RunningServer {
   server: Server;
   url: string;
   ctx: AppContext;
+  sink?: SmtpSink;
   close(): Promise<void>;
 }
 
-/** Migrates, then listens. Resolves once the port is bound; rejects with a clear message if it is taken. */
-export async function startServer(config: ServerConfig, logger: Logger = createLogger()): Promise<RunningServer> {
+export interface StartOptions {
+  logger?: Logger;
+  /** Called for every message the local SMTP sink captures (the start command prints a line). */
+  onMail?: (mail: CapturedMail) => void;
+}
+
+/** Migrates, starts the local mail sink when no SMTP provider is set, then listens. */
+export async function startServer(config: ServerConfig, { logger = createLogger(), onMail }: StartOptions = {}): Promise<RunningServer> {
+  if (!config.authSecret) throw new Error("AUTH_SECRET is not set. `npm start` generates one into .env.local; in production set it in the environment.");
   const db = createDb(config.databaseUrl);
   await runMigrations(db);
-  const ctx: AppContext = { db, config, logger };
+  const sink = config.mailSink ? await startSmtpSink(db, { port: config.sinkPort ?? 0, onMail }) : undefined;
+  const mailer = createMailer({ smtpUrl: config.smtpUrl, sinkPort: sink?.port, from: config.mailFrom });
+  const ctx: AppContext = { db, config, logger, mailer };
   const app = createApp(ctx);
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(config.port, config.host);
@@ -27,6 +39,10 @@ export async function startServer(config: ServerConfig, logger: Logger = createL
         reject(new Error(`Port ${config.port} on ${config.host} is already in use. Stop the other program or set PORT to a free port.`));
       } else reject(err);
     });
+  }).catch(async (err) => {
+    await sink?.close();
+    await db.$client.end();
+    throw err;
   });
   const address = server.address();
   const port = typeof address === "object" && address ? address.port : config.port;
@@ -35,12 +51,15 @@ export async function startServer(config: ServerConfig, logger: Logger = createL
     server,
     url: `http://${config.host}:${port}`,
     ctx,
+    sink,
     close() {
-      // Stop accepting, let in-flight requests finish, then close the pool.
+      // Stop accepting, let in-flight requests finish, then close the mail sink and the pool.
       closing ??= new Promise<void>((resolve) => {
         server.close(() => resolve());
         server.closeIdleConnections();
-      }).then(() => db.$client.end());
+      })
+        .then(() => sink?.close())
+        .then(() => db.$client.end());
       return closing;
     },
   };

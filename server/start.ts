@@ -8,6 +8,7 @@ import { seedDemoOnce } from "../db/seed";
 import { projectRoot, readConfig } from "./config";
 import { startServer, type RunningServer } from "./index";
 import { createLogger } from "./logger";
+import { loadLocalEnv } from "./local-env";
 import { buildWebIfChanged } from "./web-build";
 
 const say = (line: string) => console.log(`dropwise: ${line}`);
@@ -22,6 +23,8 @@ function dataFolder(): string {
 }
 
 async function main() {
+  const { created } = loadLocalEnv();
+  if (created) say("generated AUTH_SECRET into .env.local (ignored by git).");
   const config = readConfig();
   if (!(await portIsFree(config.port, config.host))) {
     throw new Error(`Port ${config.port} on ${config.host} is already in use. Stop the other program or start with PORT=<free port> npm start.`);
@@ -50,7 +53,10 @@ async function main() {
       say(`database ready on 127.0.0.1:${pgPort}`);
     }
     if (buildWebIfChanged(config.webDist, say)) say("web app built.");
-    running = await startServer(config, createLogger(process.env.LOG_LEVEL ?? "warn"));
+    running = await startServer(config, {
+      logger: createLogger(process.env.LOG_LEVEL ?? "warn"),
+      onMail: (mail) => say(`mail to ${mail.to}: "${mail.subject}"${mail.links.length ? ` ${mail.links.join(" ")}` : ""}`),
+    });
     const seeded = await seedDemoOnce(running.ctx.db);
     if (seeded) say("demo data loaded (the Okonkwo-Lindqvist house).");
     say(`Dropwise is running at ${running.url}`);
@@ -59,6 +65,7 @@ async function main() {
       const how = a.role === "client" ? "sign in with an e-mailed link" : `password ${DEMO_PASSWORD}`;
       console.log(`    ${a.role.padEnd(9)} ${a.email.padEnd(30)} ${how}`);
     }
+    if (config.mailSink) say(`e-mail is captured locally (no SMTP_URL set): admins see it under Team › Outbox, and each message is printed here.`);
     say("press Ctrl-C to stop.");
   } catch (err) {
     const message = err instanceof ClusterError || err instanceof Error ? err.message : String(err);

@@ -1,4 +1,5 @@
 import type { IconName } from "@/components/ui/icons";
+import type { Role } from "@/survey/policy";
 
 export interface NavItem {
   href: string;
@@ -8,11 +9,24 @@ export interface NavItem {
   match: string[];
 }
 
-export const baseNavItems: NavItem[] = [
-  { href: "/", label: "Sites", icon: "sites", match: ["/", "/sites"] },
-  { href: "/sync", label: "Sync", icon: "sync", match: ["/sync"] },
-  { href: "/account", label: "Account", icon: "account", match: ["/account"] },
-];
+const sites = (label: string, icon: IconName = "sites"): NavItem => ({ href: "/", label, icon, match: ["/", "/sites"] });
+const sync: NavItem = { href: "/sync", label: "Sync", icon: "sync", match: ["/sync"] };
+const team: NavItem = { href: "/team", label: "Team", icon: "team", match: ["/team"] };
+const account: NavItem = { href: "/account", label: "Account", icon: "account", match: ["/account"] };
+
+/** Each role's navigation: what it cannot use is not shown at all. */
+export function navItemsFor(role: Role): NavItem[] {
+  switch (role) {
+    case "admin":
+      return [sites("Sites"), team, account];
+    case "designer":
+      return [sites("Desk", "desk"), account];
+    case "surveyor":
+      return [sites("Walks"), sync, account];
+    case "client":
+      return [sites("Scope", "report"), account];
+  }
+}
 
 export function isActive(item: NavItem, pathname: string) {
   return item.match.some((m) => (m === "/" ? pathname === "/" : pathname === m || pathname.startsWith(`${m}/`)));

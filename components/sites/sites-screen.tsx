@@ -1,16 +1,86 @@
+import { Link } from "expo-router";
+import { useState } from "react";
+import { ActivityIndicator, Pressable, StyleSheet, View } from "react-native";
+import { Banner } from "@/components/ui/banner";
+import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Icon } from "@/components/ui/icons";
 import { Screen } from "@/components/ui/screen";
-import { colors } from "@/constants/theme";
+import { AppText } from "@/components/ui/text";
+import { colors, radius, space } from "@/constants/theme";
+import { useMe } from "@/hooks/queries/me";
+import { useSites } from "@/hooks/queries/sites";
+import { NewSiteForm } from "./new-site-form";
+import { SiteStatusBadge } from "./site-status-badge";
+
+const SUBTITLES = {
+  admin: "Every house your team is walking, planning or waiting on for sign-off.",
+  designer: "Every house of the team, from the walk to the signed scope.",
+  surveyor: "The houses you are assigned to walk.",
+  client: "Your home's plan, from the installer who walked it.",
+} as const;
 
 export function SitesScreen() {
+  const me = useMe();
+  const sites = useSites();
+  const [creating, setCreating] = useState(false);
+  const title = me.role === "designer" ? "Desk" : me.role === "client" ? "Your scope" : me.role === "surveyor" ? "Walks" : "Sites";
+
   return (
-    <Screen title="Sites" subtitle="Every house your team is walking, planning or waiting on for sign-off.">
-      <EmptyState
-        icon={<Icon name="sites" size={40} color={colors.slate600} />}
-        title="No sites yet"
-        body="A designer creates a site for each house and assigns a surveyor. Assigned sites appear here, with their walk progress and gaps."
-      />
+    <Screen
+      title={title}
+      subtitle={SUBTITLES[me.role]}
+      actions={me.permissions["site:create"] && !creating ? <Button label="New site" onPress={() => setCreating(true)} /> : undefined}
+    >
+      {creating ? <NewSiteForm onDone={() => setCreating(false)} /> : null}
+      {sites.isPending ? <ActivityIndicator color={colors.slate800} /> : null}
+      {sites.isError ? <Banner tone="danger">{sites.error.message}</Banner> : null}
+      {sites.data?.length === 0 ? (
+        <EmptyState
+          icon={<Icon name="sites" size={40} color={colors.slate600} />}
+          title="No sites yet"
+          body={
+            me.role === "surveyor"
+              ? "When a designer assigns you a house, it appears here with its walk progress and gaps."
+              : me.role === "client"
+                ? "When your installer invites you to a site, its scope appears here."
+                : "Create a site for each house and assign a surveyor to walk it."
+          }
+        />
+      ) : null}
+      <View style={styles.list} role="list">
+        {sites.data?.map((site) => (
+          <Link key={site.id} href={`/sites/${site.id}`} asChild>
+            <Pressable role="link" aria-label={`${site.name}, ${site.address}`} style={styles.row}>
+              <View style={styles.rowIcon}>
+                <Icon name="sites" color={colors.slate700} />
+              </View>
+              <View style={{ flex: 1, gap: 2 }}>
+                <AppText variant="subheading">{site.name}</AppText>
+                <AppText muted variant="caption">
+                  {site.address || "No address yet"}
+                </AppText>
+              </View>
+              <SiteStatusBadge status={site.status} />
+            </Pressable>
+          </Link>
+        ))}
+      </View>
     </Screen>
   );
 }
+
+const styles = StyleSheet.create({
+  list: { gap: space.sm },
+  row: {
+    flexDirection: "row",
+    alignItems: "center",
+    gap: space.md,
+    padding: space.lg,
+    backgroundColor: colors.card,
+    borderRadius: radius.lg,
+    borderWidth: 1,
+    borderColor: colors.line,
+  },
+  rowIcon: { width: 44, height: 44, borderRadius: radius.md, backgroundColor: colors.slate50, alignItems: "center", justifyContent: "center" },
+});

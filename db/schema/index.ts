@@ -1,3 +1,4 @@
 export * from "./enums";
 export * from "./teams";
 export * from "./sites";
+export * from "./auth";

@@ -13,7 +13,9 @@ export const teams = pgTable("teams", {
 export const users = pgTable(
   "users",
   {
-    id: text().primaryKey(),
+    id: text()
+      .primaryKey()
+      .$defaultFn(() => crypto.randomUUID()),
     name: text(),
     email: text().notNull(),
     emailVerified: timestamp({ withTimezone: true, mode: "date" }),

@@ -2,9 +2,8 @@ import express from "express";
 import request from "supertest";
 import * as v from "valibot";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import pino from "pino";
 import { createApp } from "../../server/app";
-import { readConfig } from "../../server/config";
+import { testContext } from "../support/test-server";
 import { errorHandler, parseInput } from "../../server/errors";
 import { createTestDb, type TestDb } from "../support/test-db";
 import { runMigrations } from "../../db/migrate";
@@ -15,8 +14,7 @@ let app: express.Express;
 
 beforeAll(async () => {
   testDb = await createTestDb();
-  const config = readConfig({}, { databaseUrl: testDb.url, version: "9.9.9-test" });
-  app = createApp({ db: testDb.db, config, logger: pino({ level: "silent" }) });
+  app = createApp(testContext(testDb.db, { version: "9.9.9-test" }));
 });
 afterAll(() => testDb.drop());
 
@@ -27,9 +25,8 @@ describe("GET /api/health", () => {
   });
 
   it("reports the database unreachable with a 503, not a crash", async () => {
-    const config = readConfig({}, { databaseUrl: "postgres://postgres@127.0.0.1:1/nowhere" });
-    const deadDb = createDb(config.databaseUrl, { connectionTimeoutMillis: 500 });
-    const deadApp = createApp({ db: deadDb, config, logger: pino({ level: "silent" }) });
+    const deadDb = createDb("postgres://postgres@127.0.0.1:1/nowhere", { connectionTimeoutMillis: 500 });
+    const deadApp = createApp(testContext(deadDb));
     const res = await request(deadApp).get("/api/health").expect(503);
     expect(res.body).toMatchObject({ ok: false, db: "unreachable" });
     await deadDb.$client.end();
@@ -49,9 +46,9 @@ describe("GET /api/health", () => {
 });
 
 describe("errors come in one shape", () => {
-  it("unknown API routes are a JSON 404", async () => {
-    const res = await request(app).get("/api/does-not-exist").expect(404);
-    expect(res.body).toEqual({ error: { code: "no_such_route", message: "There is no API route GET /does-not-exist." } });
+  it("anything but the public routes asks an anonymous caller to sign in, as JSON", async () => {
+    const res = await request(app).get("/api/does-not-exist").expect(401);
+    expect(res.body).toEqual({ error: { code: "signed_out", message: "Sign in to continue." } });
   });
 
   it("malformed JSON is a 400 that says so", async () => {

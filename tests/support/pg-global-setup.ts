@@ -5,7 +5,7 @@ import os from "node:os";
 import path from "node:path";
 import type { TestProject } from "vitest/node";
 import { createDb } from "../../db/client";
-import { ensureDatabase, portIsFree, startCluster } from "../../db/cluster";
+import { ensureDatabase, findFreePort, startCluster } from "../../db/cluster";
 import { runMigrations } from "../../db/migrate";
 
 declare module "vitest" {
@@ -17,14 +17,11 @@ declare module "vitest" {
 
 export const TEMPLATE_DB = "dropwise_template";
 
-async function freePort(): Promise<number> {
-  for (let port = 55_400 + Math.floor(Math.random() * 2000); ; port++) if (await portIsFree(port)) return port;
-}
 
 export default async function setup(project: TestProject) {
   const base = fs.mkdtempSync(path.join(os.tmpdir(), "dropwise-test-pg-"));
   fs.chmodSync(base, 0o755);
-  const cluster = await startCluster({ dataDir: path.join(base, "data"), port: await freePort(), throwaway: true });
+  const cluster = await startCluster({ dataDir: path.join(base, "data"), port: await findFreePort(55_400), throwaway: true });
   await ensureDatabase(cluster, TEMPLATE_DB);
   const db = createDb(cluster.url(TEMPLATE_DB));
   await runMigrations(db);

@@ -1,20 +1,28 @@
+import { randomBytes } from "node:crypto";
 // A real Dropwise server on a free port, against a database of its own, for API and browser tests.
 import path from "node:path";
 import pino from "pino";
+import type { Db } from "../../db/client";
 import { seedDemoOnce } from "../../db/seed";
-import { projectRoot, readConfig } from "../../server/config";
+import type { AppContext } from "../../server/context";
+import { createMailer } from "../../server/mail/mailer";
+import { projectRoot, readConfig, type ServerConfig } from "../../server/config";
 import { startServer, type RunningServer } from "../../server/index";
 import { createTestDb, type TestDb } from "./test-db";
+import { findFreePort } from "../../db/cluster";
+
 
 export interface TestServer extends RunningServer {
   testDb: TestDb;
   stop(): Promise<void>;
 }
 
-export async function startTestServer({ seed = true } = {}): Promise<TestServer> {
+export async function startTestServer({ seed = true, config: overrides = {} }: { seed?: boolean; config?: Partial<ServerConfig> } = {}): Promise<TestServer> {
   const testDb = await createTestDb();
-  const config = readConfig({}, { port: 0, host: "127.0.0.1", databaseUrl: testDb.url, webDist: path.join(projectRoot, "dist") });
-  const running = await startServer(config, pino({ level: "silent" }));
+  // A fixed free port, so the public origin (and every link in captured mail) is the real address.
+  const port = overrides.port ?? (await findFreePort(42_000, 8000));
+  const config = testConfig({ databaseUrl: testDb.url, port, publicOrigin: `http://127.0.0.1:${port}`, ...overrides });
+  const running = await startServer(config, { logger: pino({ level: "silent" }) });
   if (seed) await seedDemoOnce(running.ctx.db);
   return {
     ...running,
@@ -24,4 +32,22 @@ export async function startTestServer({ seed = true } = {}): Promise<TestServer>
       await testDb.drop();
     },
   };
+}
+
+/** A server configuration for tests: random secret, free port, the shared web build. */
+export function testConfig(overrides: Partial<ServerConfig> = {}): ServerConfig {
+  return readConfig({}, {
+    port: 0,
+    host: "127.0.0.1",
+    webDist: path.join(projectRoot, "dist"),
+    authSecret: randomBytes(32).toString("base64url"),
+    authRateLimit: 1000,
+    ...overrides,
+  });
+}
+
+/** An app context without a running server, for supertest against createApp(); mail is not delivered. */
+export function testContext(db: Db, overrides: Partial<ServerConfig> = {}): AppContext {
+  const config = testConfig({ databaseUrl: "postgres://unused", ...overrides });
+  return { db, config, logger: pino({ level: "silent" }), mailer: createMailer({ transport: { jsonTransport: true }, from: config.mailFrom }) };
 }

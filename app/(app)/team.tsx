@@ -1,0 +1,1 @@
+export { TeamScreen as default } from "@/components/team/team-screen";

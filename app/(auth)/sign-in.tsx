@@ -1,0 +1,1 @@
+export { SignInScreen as default } from "@/components/auth/sign-in-screen";

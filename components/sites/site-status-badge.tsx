@@ -1,0 +1,9 @@
+import { Badge } from "@/components/ui/badge";
+import type { SiteStatus } from "@/hooks/queries/sites";
+import { SITE_STATUS_LABELS } from "@/survey/team";
+
+const TONE = { surveying: "neutral", planning: "copper", out_for_sign_off: "warn", signed: "good", changes_asked: "danger" } as const;
+
+export function SiteStatusBadge({ status }: { status: SiteStatus }) {
+  return <Badge label={SITE_STATUS_LABELS[status]} tone={TONE[status]} />;
+}

@@ -1,0 +1,63 @@
+import { getSession, type ExpressAuthConfig } from "@auth/express";
+import type { RequestHandler } from "express";
+import type { Actor, Role, TeamAction } from "../../survey/policy";
+import { decideTeam } from "../../survey/policy";
+import type { AppContext } from "../context";
+import { HttpError } from "../errors";
+import { findMembership } from "./auth-config";
+
+export interface SignedInActor extends Actor {
+  name: string | null;
+  email: string;
+  role: Role;
+}
+
+declare global {
+  // eslint-disable-next-line @typescript-eslint/no-namespace
+  namespace Express {
+    interface Locals {
+      actor?: SignedInActor;
+    }
+  }
+}
+
+const SESSION_COOKIE = /(?:^|;\s*)(?:__Secure-)?authjs\.session-token(?:\.\d+)?=/;
+
+/** Reads the Auth.js session (when there is a session cookie) and the member's current team role. */
+export function loadActor(ctx: AppContext, authConfig: ExpressAuthConfig): RequestHandler {
+  return async (req, res, next) => {
+    if (!SESSION_COOKIE.test(req.headers.cookie ?? "")) return next();
+    const session = await getSession(req, authConfig);
+    const userId = session?.user?.id;
+    if (!userId) return next();
+    // Roles are read fresh on every request, so a changed role or a removal takes effect at once.
+    const member = await findMembership(ctx, userId);
+    if (member) res.locals.actor = { userId: member.userId, teamId: member.teamId, role: member.role, name: member.name, email: member.email };
+    else res.locals.actor = undefined;
+    next();
+  };
+}
+
+export const signedOut = () => new HttpError(401, "signed_out", "Sign in to continue.");
+
+export function actorOf(res: { locals: { actor?: SignedInActor } }): SignedInActor {
+  const actor = res.locals.actor;
+  if (!actor) throw signedOut();
+  return actor;
+}
+
+/** Route guard for team-level actions (see survey/policy.ts). */
+export function requireTeam(action: TeamAction): RequestHandler {
+  return (_req, res, next) => {
+    const actor = actorOf(res);
+    if (decideTeam(actor, action) !== "allow") {
+      throw new HttpError(403, "forbidden", `A ${actor.role} cannot do that. Ask your team's admin if you need it.`);
+    }
+    next();
+  };
+}
+
+export const requireSignedIn: RequestHandler = (_req, res, next) => {
+  actorOf(res);
+  next();
+};

@@ -1,0 +1,23 @@
+import * as v from "valibot";
+
+export type FieldErrors = Record<string, string[]>;
+
+/**
+ * Per-field messages from valibot issues, keyed by dotted path ("_" for the whole value). A missing
+ * key comes out of valibot as "Invalid key: …"; it reads "This field is required." instead.
+ */
+export function fieldErrors(issues: readonly v.BaseIssue<unknown>[]): FieldErrors {
+  const out: FieldErrors = {};
+  for (const issue of issues) {
+    const key = v.getDotPath(issue) ?? "_";
+    const message = issue.input === undefined && issue.message.startsWith("Invalid key") ? "This field is required." : issue.message;
+    (out[key] ??= []).includes(message) || out[key].push(message);
+  }
+  return out;
+}
+
+/** Parses with a shared schema: the value, or the per-field errors to mark in a form or a 400. */
+export function check<S extends v.GenericSchema>(schema: S, input: unknown): { ok: true; value: v.InferOutput<S> } | { ok: false; errors: FieldErrors } {
+  const result = v.safeParse(schema, input);
+  return result.success ? { ok: true, value: result.output } : { ok: false, errors: fieldErrors(result.issues) };
+}

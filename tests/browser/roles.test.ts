@@ -1,0 +1,89 @@
+import type { Browser } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { PHONE, launchBrowser, screenshot, watchPage } from "../support/browser";
+import { signInByLinkThroughUi, signInThroughUi } from "../support/browser-auth";
+import { startTestServer, type TestServer } from "../support/test-server";
+
+let server: TestServer;
+let browser: Browser;
+
+beforeAll(async () => {
+  server = await startTestServer();
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+});
+
+const ROLES = [
+  { role: "admin", email: "imke@lanternfield.test", nav: ["Sites", "Team", "Account"] },
+  { role: "designer", email: "tomas@lanternfield.test", nav: ["Desk", "Account"] },
+  { role: "surveyor", email: "priya@lanternfield.test", nav: ["Walks", "Sync", "Account"] },
+  { role: "client", email: "june@okonkwo-lindqvist.test", nav: ["Scope", "Account"] },
+] as const;
+
+describe("each demo role at phone size sees its own navigation", () => {
+  for (const { role, email, nav } of ROLES) {
+    it(`${role}: ${nav.join(" · ")}`, async () => {
+      const context = await browser.newContext({ viewport: PHONE });
+      const page = await context.newPage();
+      const watch = watchPage(page);
+      if (role === "client") await signInByLinkThroughUi(page, server, email);
+      else await signInThroughUi(page, server, email);
+      const links = await page.getByRole("navigation", { name: "Main" }).getByRole("link").allInnerTexts();
+      expect(links.map((l) => l.trim())).toEqual(nav);
+      await screenshot(page, `role-${role}-phone`);
+      expect(watch.problems).toEqual([]);
+      await context.close();
+    });
+  }
+
+  it("a wrong password is marked on the sign-in screen", async () => {
+    const context = await browser.newContext({ viewport: PHONE });
+    const page = await context.newPage();
+    await page.goto(`${server.url}/sign-in`, { waitUntil: "networkidle" });
+    await page.getByRole("textbox", { name: "E-mail" }).fill("tomas@lanternfield.test");
+    await page.getByRole("textbox", { name: "Password" }).fill("definitely-wrong");
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await page.getByText("That e-mail and password don't match").waitFor();
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await page.getByRole("textbox", { name: "E-mail" }).fill("not an address");
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await page.getByText("That does not look like an e-mail address.").waitFor();
+    expect(await page.getByRole("textbox", { name: "E-mail" }).getAttribute("aria-invalid")).toBe("true");
+    await screenshot(page, "sign-in-error-phone");
+    await context.close();
+  });
+
+  it("an admin invites a surveyor who joins through the link and lands signed in", async () => {
+    const context = await browser.newContext({ viewport: PHONE });
+    const page = await context.newPage();
+    await signInThroughUi(page, server, "imke@lanternfield.test");
+    await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Team" }).click();
+    await page.getByRole("heading", { name: "Team" }).waitFor();
+    await page.getByRole("textbox", { name: "E-mail" }).fill("wren@lanternfield.test");
+    await page.getByRole("radio", { name: "Surveyor" }).first().click();
+    await page.getByRole("button", { name: "Send invitation" }).click();
+    await page.getByText("Invitation sent to wren@lanternfield.test").waitFor();
+    const link = await page.getByText(/\/invite\//).first().innerText();
+    await screenshot(page, "team-phone");
+    const joiner = await browser.newContext({ viewport: PHONE });
+    const jp = await joiner.newPage();
+    await jp.goto(link.trim(), { waitUntil: "networkidle" });
+    await jp.getByRole("heading", { name: "Join Lanternfield Low Voltage" }).waitFor();
+    await jp.getByRole("textbox", { name: "Your name" }).fill("Wren Adeyemi");
+    await jp.getByRole("textbox", { name: "Password" }).fill("wren-walks-attics");
+    await jp.getByRole("button", { name: "Join the team" }).click();
+    await jp.getByRole("heading", { name: "Walks" }).waitFor();
+    await joiner.close();
+    // Someone else opening the same link later is told it was used.
+    const later = await browser.newContext({ viewport: PHONE });
+    const lp = await later.newPage();
+    await lp.goto(link.trim(), { waitUntil: "networkidle" });
+    await lp.getByText(/already used/).waitFor();
+    await screenshot(lp, "invite-used-phone");
+    await later.close();
+    await context.close();
+  });
+});

@@ -1,0 +1,346 @@
+import type { BatteryBackup } from '../model/battery';
+import { isPoeSource, type PoeSource, type PowerSource } from '../model/power-source';
+import type { Site } from '../model/site';
+import { POE_TYPES } from '../standards/poe-types';
+import { formatPercent, formatWatts, roundTo } from '../units';
+import { evaluateDevice } from './recommend-device';
+import type { DeviceEvaluation, PlanWarning } from './result-types';
+
+/**
+ * Automatic port assignment.
+ *
+ * 1. Devices pinned by hand to a port (sourceId + port) are placed there first;
+ *    devices pinned to a source without a port get its lowest free port. Pins are
+ *    respected as given — even over budget, which the switch check then reports —
+ *    except that a port whose PoE type is too low for the device is never used.
+ * 2. The remaining PoE devices (recommendation poe or poe_splitter) are placed
+ *    critical (must stay up) first, then largest demand first (first-fit
+ *    decreasing), ties by their order in the site.
+ * 3. Each goes to the first source, in this order, with a port of a high enough
+ *    PoE type, a free port and room in its budget:
+ *      critical devices: battery-backed switches, battery-backed injectors, other switches, other injectors;
+ *      other devices:    switches, then injectors (site order within each group).
+ *    "Room" means: the switch's load on the site's budget basis (class reservation
+ *    or expected draw) stays within budget × planning ceiling (80 % by default,
+ *    common practice, no standard). Injectors have a fixed per-port power and are
+ *    checked against their budget only.
+ * 4. Ports are given lowest number first, so critical devices, placed first, get
+ *    the low port numbers — which are shed last on a tie (facts §3, S43v).
+ *
+ * Devices that fit nowhere are listed as unassigned with a reason.
+ */
+
+export interface PortPlacement {
+  readonly deviceId: string;
+  readonly sourceId: string;
+  readonly port: number;
+  readonly pinned: boolean;
+  readonly critical: boolean;
+  readonly reservedW: number;
+  readonly expectedPseW: number;
+}
+
+export interface UnassignedDevice {
+  readonly deviceId: string;
+  readonly code: 'no_port_of_type' | 'ports_full' | 'over_ceiling' | 'pinned_type_too_low' | 'pinned_source_full';
+  readonly reason: string;
+}
+
+export interface PortAssignment {
+  readonly placements: readonly PortPlacement[];
+  readonly unassigned: readonly UnassignedDevice[];
+  readonly warnings: readonly PlanWarning[];
+}
+
+interface SourceState {
+  readonly src: PoeSource;
+  readonly ports: number;
+  readonly taken: Uint8Array;
+  nextFree: number;
+  free: number;
+  usedW: number;
+  readonly budgetW: number;
+  readonly limitW: number;
+  readonly onBattery: boolean;
+}
+
+const EPS = 1e-9;
+
+export function sourceBudgetW(src: PoeSource): number {
+  if (src.kind === 'poe_switch') return src.budgetW;
+  return src.budgetW ?? src.ports * POE_TYPES[src.poeType].psePowerW;
+}
+
+function newState(src: PoeSource, ceiling: number, onBattery: boolean): SourceState {
+  const ports = src.kind === 'poe_switch' ? src.poePorts : src.ports;
+  const budgetW = sourceBudgetW(src);
+  return {
+    src, ports, taken: new Uint8Array(ports + 1), nextFree: 1, free: ports, usedW: 0,
+    budgetW, limitW: src.kind === 'poe_switch' ? budgetW * ceiling : budgetW, onBattery,
+  };
+}
+
+/** A max segment tree with "first index whose value ≥ x". */
+class MaxTree {
+  private readonly size: number;
+  private readonly tree: Float64Array;
+  constructor(values: readonly number[]) {
+    let size = 1;
+    while (size < values.length) size <<= 1;
+    this.size = size;
+    this.tree = new Float64Array(2 * size).fill(-Infinity);
+    for (let i = 0; i < values.length; i++) this.tree[size + i] = values[i];
+    for (let i = size - 1; i >= 1; i--) this.tree[i] = Math.max(this.tree[2 * i], this.tree[2 * i + 1]);
+  }
+  update(index: number, value: number): void {
+    let i = this.size + index;
+    this.tree[i] = value;
+    for (i >>= 1; i >= 1; i >>= 1) this.tree[i] = Math.max(this.tree[2 * i], this.tree[2 * i + 1]);
+  }
+  /** Lowest index whose value is ≥ x, or −1. */
+  firstAtLeast(x: number): number {
+    if (!(this.tree[1] >= x)) return -1;
+    let i = 1;
+    while (i < this.size) i = this.tree[2 * i] >= x ? 2 * i : 2 * i + 1;
+    return i - this.size;
+  }
+}
+
+function take(st: SourceState, port: number): void {
+  st.taken[port] = 1;
+  st.free--;
+  while (st.nextFree <= st.ports && st.taken[st.nextFree] === 1) st.nextFree++;
+}
+
+function typeName(t: number): string {
+  const s = POE_TYPES[t as 1 | 2 | 3 | 4];
+  return t >= 3 ? `${s.standardName} Type ${t}` : s.standardName;
+}
+
+/** Assign PoE devices to switch and injector ports. Evaluates the devices if results are not given. */
+export function assignPorts(site: Site, devices?: readonly DeviceEvaluation[]): PortAssignment {
+  const evals = devices ?? site.devices.map((d) => evaluateDevice(d, site));
+  const sourceById = new Map<string, PowerSource>();
+  const poeSources: PoeSource[] = [];
+  for (const s of site.powerSources) {
+    sourceById.set(s.id, s);
+    if (isPoeSource(s)) poeSources.push(s);
+  }
+  const batteryBySource = new Map<string, BatteryBackup>();
+  for (const b of site.batteries) for (const id of b.feeds) batteryBySource.set(id, b);
+  return assignPortsWith(site, evals, sourceById, poeSources, batteryBySource);
+}
+
+/** @internal Shared by assignPorts and the site evaluation (precomputed maps). */
+export function assignPortsWith(
+  site: Site,
+  evals: readonly DeviceEvaluation[],
+  sourceById: ReadonlyMap<string, PowerSource>,
+  poeSources: readonly PoeSource[],
+  batteryBySource: ReadonlyMap<string, BatteryBackup>,
+): PortAssignment {
+  const settings = site.settings;
+  const byClass = settings.budgetBasis === 'class';
+  const ceiling = settings.planningCeiling;
+  const states = new Map<string, SourceState>();
+  const stateList: SourceState[] = [];
+  for (const s of poeSources) {
+    const st = newState(s, ceiling, batteryBySource.has(s.id) || s.onBattery);
+    states.set(s.id, st);
+    stateList.push(st);
+  }
+  const placements: PortPlacement[] = [];
+  const unassigned: UnassignedDevice[] = [];
+  const warnings: PlanWarning[] = [];
+  const devices = site.devices;
+
+  const place = (i: number, st: SourceState, port: number, pinned: boolean): void => {
+    const e = evals[i];
+    const poe = e.poe!;
+    take(st, port);
+    st.usedW += byClass ? poe.reservedW : poe.expectedPseW;
+    placements.push({
+      deviceId: e.deviceId, sourceId: st.src.id, port, pinned, critical: e.mustStayUp,
+      reservedW: poe.reservedW, expectedPseW: poe.expectedPseW,
+    });
+  };
+
+  // Pass 1: pins. Collect the rest for automatic placement.
+  const auto: number[] = [];
+  const pinnedNoPort: number[] = [];
+  for (let i = 0; i < devices.length; i++) {
+    const d = devices[i];
+    const e = evals[i];
+    const src = d.sourceId === undefined ? undefined : sourceById.get(d.sourceId);
+    const st = src === undefined ? undefined : states.get(src.id);
+    if (e.poe === null) {
+      if (st !== undefined) {
+        const passive = d.input.type === 'passive_poe';
+        warnings.push({
+          code: passive ? 'passive_on_standard_port' : 'pin_not_poe',
+          severity: passive ? 'error' : 'warning',
+          deviceId: d.id, sourceId: st.src.id,
+          message: passive
+            ? `"${d.name}" is pinned to "${st.src.name}", but it uses passive PoE: a standard PoE port cannot power it. Use its own injector.`
+            : `"${d.name}" is pinned to "${st.src.name}", but it is not powered by PoE in this plan; the pin is ignored.`,
+        });
+      }
+      continue;
+    }
+    if (st === undefined) {
+      if (src !== undefined) {
+        warnings.push({
+          code: 'pin_outlet_for_poe', severity: 'info', deviceId: d.id, sourceId: src.id,
+          message: `"${d.name}" is pinned to the outlet "${src.name}", but it is powered by PoE; it is placed on a switch automatically.`,
+        });
+      }
+      auto.push(i);
+      continue;
+    }
+    if (st.src.poeType < e.poe.poeType) {
+      unassigned.push({
+        deviceId: d.id, code: 'pinned_type_too_low',
+        reason: `It is pinned to "${st.src.name}", whose ports are ${typeName(st.src.poeType)}, but it needs ${typeName(e.poe.poeType)} (Class ${e.poe.poeClass}).`,
+      });
+      continue;
+    }
+    if (d.port !== undefined) place(i, st, d.port, true);
+    else pinnedNoPort.push(i);
+  }
+  for (const i of pinnedNoPort) {
+    const st = states.get(devices[i].sourceId!)!;
+    if (st.free > 0) place(i, st, st.nextFree, true);
+    else {
+      unassigned.push({
+        deviceId: devices[i].id, code: 'pinned_source_full',
+        reason: `It is pinned to "${st.src.name}", but all ${st.ports} of its PoE ports are taken.`,
+      });
+    }
+  }
+
+  // Pass 2: automatic placement.
+  const demand = (i: number): number => {
+    const p = evals[i].poe!;
+    return byClass ? p.reservedW : p.expectedPseW;
+  };
+  // Sort keys gathered once (the comparator then reads two typed arrays, not the results).
+  const crit = new Uint8Array(devices.length);
+  const dem = new Float64Array(devices.length);
+  for (const i of auto) {
+    crit[i] = evals[i].mustStayUp ? 1 : 0;
+    dem[i] = demand(i);
+  }
+  auto.sort((a, b) => (crit[b] - crit[a]) || (dem[b] - dem[a]) || (a - b));
+  const switchesBattery = stateList.filter((s) => s.src.kind === 'poe_switch' && s.onBattery);
+  const switchesOther = stateList.filter((s) => s.src.kind === 'poe_switch' && !s.onBattery);
+  const injBattery = stateList.filter((s) => s.src.kind === 'injector' && s.onBattery);
+  const injOther = stateList.filter((s) => s.src.kind === 'injector' && !s.onBattery);
+  const criticalOrder = [...switchesBattery, ...injBattery, ...switchesOther, ...injOther];
+  const normalOrder = [...stateList.filter((s) => s.src.kind === 'poe_switch'), ...stateList.filter((s) => s.src.kind === 'injector')];
+
+  // First fit in O(log sources): for each order and each required PoE type, a
+  // max-tree over the eligible sources (in that order) of their remaining room
+  // (−∞ once their ports are full). Finding "the first source with room ≥ need"
+  // is a descent of the tree; placing a device updates the source's leaves.
+  const room = (st: SourceState): number => (st.free > 0 ? st.limitW - st.usedW : -Infinity);
+  const leaves = new Map<SourceState, { tree: MaxTree; index: number }[]>();
+  const buildTrees = (order: readonly SourceState[]): { trees: MaxTree[]; lists: SourceState[][] } => {
+    const trees: MaxTree[] = [];
+    const lists: SourceState[][] = [];
+    for (let t = 1; t <= 4; t++) {
+      const list = order.filter((st) => st.src.poeType >= t);
+      const tree = new MaxTree(list.map(room));
+      list.forEach((st, index) => {
+        let l = leaves.get(st);
+        if (l === undefined) leaves.set(st, (l = []));
+        l.push({ tree, index });
+      });
+      trees[t] = tree;
+      lists[t] = list;
+    }
+    return { trees, lists };
+  };
+  const critical = buildTrees(criticalOrder);
+  const normal = buildTrees(normalOrder);
+  const failed: number[] = [];
+
+  for (const i of auto) {
+    const poe = evals[i].poe!;
+    const need = dem[i];
+    const group = crit[i] === 1 ? critical : normal;
+    const k = group.trees[poe.poeType].firstAtLeast(need - EPS);
+    if (k < 0) {
+      failed.push(i);
+      continue;
+    }
+    const st = group.lists[poe.poeType][k];
+    place(i, st, st.nextFree, false);
+    const r = room(st);
+    for (const leaf of leaves.get(st)!) leaf.tree.update(leaf.index, r);
+  }
+
+  // Reasons are written against the final state, summarised once per PoE type.
+  if (failed.length > 0) {
+    const summaries = new Map<number, TypeSummary>();
+    for (const i of failed) {
+      const poe = evals[i].poe!;
+      let sum = summaries.get(poe.poeType);
+      if (sum === undefined) summaries.set(poe.poeType, (sum = summarise(stateList, poe.poeType)));
+      unassigned.push(unassignedReason(evals[i].deviceId, poe.poeType, poe.poeClass, demand(i), sum, byClass, ceiling));
+    }
+  }
+
+  return { placements, unassigned, warnings };
+}
+
+interface TypeSummary {
+  readonly eligible: number;
+  readonly eligiblePorts: number;
+  readonly withPorts: number;
+  readonly best: SourceState | null;
+}
+
+/** For one required type: how many sources could serve it, and the roomiest one with a free port. */
+function summarise(states: readonly SourceState[], poeType: number): TypeSummary {
+  let eligible = 0;
+  let eligiblePorts = 0;
+  let withPorts = 0;
+  let best: SourceState | null = null;
+  for (const s of states) {
+    if (s.src.poeType < poeType) continue;
+    eligible++;
+    eligiblePorts += s.ports;
+    if (s.free === 0) continue;
+    withPorts++;
+    if (best === null || s.limitW - s.usedW > best.limitW - best.usedW) best = s;
+  }
+  return { eligible, eligiblePorts, withPorts, best };
+}
+
+function unassignedReason(
+  deviceId: string, poeType: number, poeClass: number, need: number,
+  sum: TypeSummary, byClass: boolean, ceiling: number,
+): UnassignedDevice {
+  if (sum.eligible === 0) {
+    return {
+      deviceId, code: 'no_port_of_type',
+      reason: `It needs a ${typeName(poeType)} port (Class ${poeClass}); no switch or injector in the plan has one. Add a ${typeName(poeType)} injector or switch.`,
+    };
+  }
+  if (sum.best === null) {
+    return {
+      deviceId, code: 'ports_full',
+      reason: `All ${sum.eligiblePorts} suitable PoE ports (${typeName(poeType)} or better) are taken. Add a switch or an injector.`,
+    };
+  }
+  const best = sum.best;
+  const left = Math.max(0, best.limitW - best.usedW);
+  const what = byClass ? 'sets aside' : 'is expected to draw';
+  const limitText = best.src.kind === 'poe_switch'
+    ? `its ${formatPercent(ceiling)} planning ceiling (common practice, no standard) of ${formatWatts(best.budgetW)}`
+    : `its ${formatWatts(best.budgetW)} budget`;
+  return {
+    deviceId, code: 'over_ceiling',
+    reason: `It ${what} ${formatWatts(roundTo(need, 2))}, but the roomiest suitable source, "${best.src.name}", has only ${formatWatts(roundTo(left, 2))} left under ${limitText}. Move devices, use a bigger switch or add an injector.`,
+  };
+}

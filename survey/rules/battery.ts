@@ -1,0 +1,246 @@
+import { capacityWh, type BatteryBackup } from '../model/battery';
+import type { Site } from '../model/site';
+import { CAUTIONS, type Caution } from '../standards/cautions';
+import { formatMinutes, formatPercent, formatWattHours, formatWatts, roundTo } from '../units';
+import { buildPlanContext, sourceOnBattery, type PlanContext } from './plan-context';
+import type { PlanWarning } from './result-types';
+
+/**
+ * Battery backup (UPS) runtime, facts §3:
+ *
+ *   usable Wh   = capacity Wh (or V × Ah) × depth of discharge × inverter efficiency × age factor   [CONFIRMED S34]
+ *   runtime min = usable Wh ÷ load W × 60                                                            [CONFIRMED S32, S33]
+ *
+ * Load on the battery:
+ *   each PoE switch it feeds:  Σ expected PSE draw of its ports ÷ supply efficiency + own draw
+ *                              (own draw taken as measured at the wall; facts §3 [PRACTICE])
+ *   each injector it feeds:    Σ expected PSE draw ÷ injector efficiency
+ *   each outlet it feeds:      Σ need of the devices pinned to that outlet (their adapter
+ *                              losses are not counted)
+ *   plus the other loads listed on it (modem, router…).
+ * The expected draw (not the class reservation) is used: runtime is about what is
+ * really drawn. High-rate (Peukert) losses are not modelled; see the battery caution.
+ */
+
+export interface BatteryLoadRow {
+  readonly sourceId: string;
+  readonly name: string;
+  readonly kind: 'poe_switch' | 'injector' | 'outlet';
+  /** Power delivered to devices by this source (W): PoE draw at the PSE, or device needs on an outlet. */
+  readonly deliveredW: number;
+  readonly efficiency: number;
+  readonly ownDrawW: number;
+  /** What it takes from the battery (W). */
+  readonly wallW: number;
+  readonly deviceIds: readonly string[];
+}
+
+export interface BatteryEvaluation {
+  readonly batteryId: string;
+  readonly name: string;
+  readonly capacityWh: number;
+  readonly depthOfDischarge: number;
+  readonly inverterEfficiency: number;
+  readonly ageFactor: number;
+  readonly usableWh: number;
+  readonly loads: readonly BatteryLoadRow[];
+  readonly otherLoadsW: number;
+  readonly totalLoadW: number;
+  /** null when nothing is on it. */
+  readonly runtimeMinutes: number | null;
+  readonly runtimeText: string;
+  /** Devices that stay up on this battery. */
+  readonly deviceIds: readonly string[];
+  readonly reasons: readonly string[];
+  readonly warnings: readonly PlanWarning[];
+  readonly cautions: readonly Caution[];
+}
+
+export interface OutageDevice {
+  readonly deviceId: string;
+  readonly mustStayUp: boolean;
+  readonly staysUp: boolean;
+  readonly batteryId: string | null;
+  /** How long it stays up; null when it goes down, or when the runtime is unknown. */
+  readonly minutes: number | null;
+  readonly reason: string;
+}
+
+export interface OutageReport {
+  readonly devices: readonly OutageDevice[];
+  readonly staysUpCount: number;
+  readonly goesDownCount: number;
+  /** Must-stay-up devices that would go down. */
+  readonly criticalDown: readonly string[];
+  readonly warnings: readonly PlanWarning[];
+}
+
+export interface BatteryReport {
+  readonly batteries: readonly BatteryEvaluation[];
+  readonly outage: OutageReport;
+}
+
+const NO_SOURCE = 'It has no power source in this plan.';
+const NO_PORT = 'It has no PoE port assigned yet.';
+const OUTLET_NOT_BACKED = 'Its outlet is not on a battery backup.';
+
+/** Usable energy (Wh) = capacity × DoD × η × age. */
+export function usableWattHours(b: Pick<BatteryBackup, 'capacity' | 'depthOfDischarge' | 'inverterEfficiency' | 'ageFactor'>): number {
+  return capacityWh(b.capacity) * b.depthOfDischarge * b.inverterEfficiency * b.ageFactor;
+}
+
+/** Runtime (min) = usable Wh ÷ load × 60; null for no load. */
+export function runtimeMinutes(usableWh: number, loadW: number): number | null {
+  return loadW > 0 ? (usableWh / loadW) * 60 : null;
+}
+
+/** @internal */
+export function evaluateBatteriesWith(ctx: PlanContext): BatteryReport {
+  const site = ctx.site;
+  const outletDevices = new Map<string, string[]>();
+  site.devices.forEach((d, i) => {
+    const e = ctx.devices[i];
+    if (d.sourceId === undefined || e.outlet === null) return;
+    const src = ctx.sourceById.get(d.sourceId);
+    if (src === undefined || src.kind !== 'outlet') return;
+    let list = outletDevices.get(src.id);
+    if (list === undefined) outletDevices.set(src.id, (list = []));
+    list.push(d.id);
+  });
+
+  const runtimeByBattery = new Map<string, number | null>();
+  const batteries: BatteryEvaluation[] = [];
+  for (const b of site.batteries) {
+    const loads: BatteryLoadRow[] = [];
+    const deviceIds: string[] = [];
+    for (const id of b.feeds) {
+      const src = ctx.sourceById.get(id);
+      if (src === undefined) continue;
+      if (src.kind === 'outlet') {
+        const ids = outletDevices.get(src.id) ?? [];
+        let w = 0;
+        for (const dId of ids) w += ctx.deviceById.get(dId)!.needW;
+        loads.push({ sourceId: src.id, name: src.name, kind: 'outlet', deliveredW: roundTo(w, 3), efficiency: 1, ownDrawW: 0, wallW: roundTo(w, 3), deviceIds: ids });
+        for (const dId of ids) deviceIds.push(dId);
+      } else {
+        const ps = ctx.placementsBySource.get(src.id) ?? [];
+        let w = 0;
+        const ids: string[] = [];
+        for (const p of ps) {
+          w += p.expectedPseW;
+          ids.push(p.deviceId);
+          deviceIds.push(p.deviceId);
+        }
+        const eff = src.kind === 'poe_switch' ? src.supplyEfficiency : src.efficiency;
+        const own = src.kind === 'poe_switch' ? src.ownDrawW : 0;
+        loads.push({ sourceId: src.id, name: src.name, kind: src.kind, deliveredW: roundTo(w, 3), efficiency: eff, ownDrawW: own, wallW: roundTo(w / eff + own, 3), deviceIds: ids });
+      }
+    }
+    let otherLoadsW = 0;
+    for (const o of b.otherLoads) otherLoadsW += o.watts;
+    let total = otherLoadsW;
+    for (const l of loads) total += l.wallW;
+    const cap = capacityWh(b.capacity);
+    const usable = usableWattHours(b);
+    const rt = runtimeMinutes(usable, total);
+    const runtime = rt === null ? null : roundTo(rt, 1);
+    runtimeByBattery.set(b.id, runtime);
+
+    const reasons: string[] = [];
+    const warnings: PlanWarning[] = [];
+    reasons.push(`${formatWattHours(cap)} battery; about ${formatWattHours(usable)} usable after depth of discharge (${formatPercent(b.depthOfDischarge)}), inverter efficiency (${formatPercent(b.inverterEfficiency)}) and age (${formatPercent(b.ageFactor)}).`);
+    if (runtime === null) {
+      reasons.push('Nothing is plugged into it yet.');
+    } else {
+      reasons.push(`It carries ${formatWatts(roundTo(total, 1))} in a power cut, so it lasts about ${formatMinutes(runtime)}.`);
+      if (runtime < 15) {
+        warnings.push({
+          code: 'short_runtime', severity: 'warning', batteryId: b.id,
+          message: `"${b.name}" would last only about ${formatMinutes(runtime)}: consider a bigger battery or fewer loads on it.`,
+        });
+      }
+    }
+    batteries.push({
+      batteryId: b.id,
+      name: b.name,
+      capacityWh: roundTo(cap, 3),
+      depthOfDischarge: b.depthOfDischarge,
+      inverterEfficiency: b.inverterEfficiency,
+      ageFactor: b.ageFactor,
+      usableWh: roundTo(usable, 3),
+      loads,
+      otherLoadsW: roundTo(otherLoadsW, 3),
+      totalLoadW: roundTo(total, 3),
+      runtimeMinutes: runtime,
+      runtimeText: runtime === null ? 'no load' : formatMinutes(runtime),
+      deviceIds,
+      reasons,
+      warnings,
+      cautions: [CAUTIONS.battery],
+    });
+  }
+
+  // Outage: who stays up, and for how long. Reasons are shared per source.
+  const devices: OutageDevice[] = [];
+  const criticalDown: string[] = [];
+  const warnings: PlanWarning[] = [];
+  const perSource = new Map<string, { staysUp: boolean; batteryId: string | null; minutes: number | null; reason: string }>();
+  const sourceVerdict = (srcId: string) => {
+    let v = perSource.get(srcId);
+    if (v !== undefined) return v;
+    const src = ctx.sourceById.get(srcId)!;
+    const bat = ctx.batteryBySource.get(src.id);
+    if (bat !== undefined) {
+      const minutes = runtimeByBattery.get(bat.id) ?? null;
+      v = { staysUp: true, batteryId: bat.id, minutes, reason: `It runs from "${src.name}", fed by "${bat.name}"${minutes === null ? '' : ` (about ${formatMinutes(minutes)})`}.` };
+    } else if (sourceOnBattery(ctx, src)) {
+      v = { staysUp: true, batteryId: null, minutes: null, reason: `"${src.name}" is marked as on a battery backup that is not in the plan, so the runtime is unknown.` };
+    } else {
+      v = { staysUp: false, batteryId: null, minutes: null, reason: `"${src.name}" is not on a battery backup.` };
+    }
+    perSource.set(srcId, v);
+    return v;
+  };
+  let up = 0;
+  site.devices.forEach((d, i) => {
+    const e = ctx.devices[i];
+    let staysUp = false;
+    let batteryId: string | null = null;
+    let minutes: number | null = null;
+    let reason: string;
+    const placement = ctx.placementByDevice.get(d.id);
+    const srcId = placement?.sourceId ?? (e.outlet !== null ? d.sourceId : undefined);
+    if (e.recommendation === 'cannot_power') {
+      reason = NO_SOURCE;
+    } else if (e.poe !== null && placement === undefined) {
+      reason = NO_PORT;
+    } else if (srcId === undefined || !ctx.sourceById.has(srcId)) {
+      reason = OUTLET_NOT_BACKED;
+    } else {
+      const v = sourceVerdict(srcId);
+      staysUp = v.staysUp;
+      batteryId = v.batteryId;
+      minutes = v.minutes;
+      reason = v.reason;
+    }
+    if (staysUp) up++;
+    else if (d.mustStayUp) {
+      criticalDown.push(d.id);
+      warnings.push({
+        code: 'critical_goes_down', severity: 'warning', deviceId: d.id,
+        message: `"${d.name}" must keep working in a power cut, but it would go down: ${reason}`,
+      });
+    }
+    devices.push({ deviceId: d.id, mustStayUp: d.mustStayUp, staysUp, batteryId, minutes, reason });
+  });
+
+  return {
+    batteries,
+    outage: { devices, staysUpCount: up, goesDownCount: devices.length - up, criticalDown, warnings },
+  };
+}
+
+/** Battery runtimes and the outage picture for a site. */
+export function evaluateBattery(site: Site, ctx?: PlanContext): BatteryReport {
+  return evaluateBatteriesWith(ctx ?? buildPlanContext(site));
+}

@@ -6,11 +6,18 @@ import {
   NunitoSans_800ExtraBold,
   useFonts,
 } from "@expo-google-fonts/nunito-sans";
-import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
+import { createSyncStoragePersister } from "@tanstack/query-sync-storage-persister";
+import { QueryClient, onlineManager } from "@tanstack/react-query";
+import { PersistQueryClientProvider } from "@tanstack/react-query-persist-client";
 import { useState } from "react";
 import { ActivityIndicator, View } from "react-native";
 import { SafeAreaProvider } from "react-native-safe-area-context";
 import { colors } from "@/constants/theme";
+
+// TanStack Query assumes "online" at start: tell it the truth, or work restored offline is lost.
+if (typeof navigator !== "undefined") onlineManager.setOnline(navigator.onLine);
+
+const persister = createSyncStoragePersister({ storage: typeof window !== "undefined" ? window.localStorage : undefined, key: "dropwise.queries.v1" });
 
 export function AppProviders({ children }: { children: ReactNode }) {
   // The font files are bundled with the app and load from our own origin.
@@ -20,7 +27,7 @@ export function AppProviders({ children }: { children: ReactNode }) {
     NunitoSans_700Bold,
     NunitoSans_800ExtraBold,
   });
-  const [queryClient] = useState(() => new QueryClient({ defaultOptions: { queries: { staleTime: 30_000, retry: 1 } } }));
+  const [queryClient] = useState(() => new QueryClient({ defaultOptions: { queries: { staleTime: 30_000, retry: 1, gcTime: 24 * 3600_000 } } }));
 
   if (!fontsLoaded && !fontError) {
     return (
@@ -31,7 +38,18 @@ export function AppProviders({ children }: { children: ReactNode }) {
   }
   return (
     <SafeAreaProvider>
-      <QueryClientProvider client={queryClient}>{children}</QueryClientProvider>
+      <PersistQueryClientProvider
+        client={queryClient}
+        persistOptions={{
+          persister,
+          maxAge: 7 * 24 * 3600_000,
+          buster: "1",
+          // The local store's queries read SQLite on the phone already; only server reads are kept.
+          dehydrateOptions: { shouldDehydrateQuery: (q) => q.state.status === "success" && q.queryKey[0] !== "local" },
+        }}
+      >
+        {children}
+      </PersistQueryClientProvider>
     </SafeAreaProvider>
   );
 }

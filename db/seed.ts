@@ -1,9 +1,11 @@
 // Seeds the invented demo scenario once, on the first start against an empty database.
 import { hash } from "@node-rs/argon2";
-import { sql } from "drizzle-orm";
+import { eq, sql } from "drizzle-orm";
+import { itemsOfSite } from "../survey/capture";
+import { demoSiteInput } from "../survey/demo-site";
 import type { Db } from "./client";
 import { DEMO_PASSWORD, demoAccounts, demoTeam } from "./demo-accounts";
-import { memberships, siteAssignments, sites, teams, users } from "./schema";
+import { items, memberships, siteAssignments, sites, teams, users } from "./schema";
 
 export const DEMO_SITE_ID = "site_larchmere";
 
@@ -26,12 +28,17 @@ export async function seedDemoOnce(db: Db): Promise<boolean> {
     await tx.insert(sites).values({
       id: DEMO_SITE_ID,
       teamId: demoTeam.id,
-      name: "Okonkwo-Lindqvist house",
+      name: "The Okonkwo-Lindqvist house",
       address: "14 Larchmere Lane",
       status: "surveying",
       clientUserId: "user_june",
     });
     await tx.insert(siteAssignments).values({ siteId: DEMO_SITE_ID, userId: "user_priya" });
+    // The walk so far: every floor, room, device and closet power source of the demo house.
+    const walked = itemsOfSite(demoSiteInput);
+    await tx.insert(items).values(walked.map((i) => ({ id: i.id, teamId: demoTeam.id, siteId: DEMO_SITE_ID, kind: i.kind, data: i.data, version: 1, updatedBy: "user_priya" })));
+    await tx.update(sites).set({ closetRoomId: demoSiteInput.closetRoomId, settings: demoSiteInput.settings ?? {}, version: 1 }).where(eq(sites.id, DEMO_SITE_ID));
+    await tx.update(teams).set({ version: 1 }).where(eq(teams.id, demoTeam.id));
   });
   return true;
 }

@@ -14,7 +14,9 @@ import { healthRouter } from "./routes/health";
 import { invitesRouter } from "./routes/invites";
 import { meRouter, sessionRouter } from "./routes/me";
 import { outboxRouter } from "./routes/outbox";
+import { photosRouter } from "./routes/photos";
 import { sitesRouter } from "./routes/sites";
+import { syncRouter } from "./routes/sync";
 import { teamRouter } from "./routes/team";
 import { requireSignedIn } from "./auth/actor";
 import { webRouter } from "./web";
@@ -71,9 +73,11 @@ export function createApp(ctx: AppContext) {
   memberApi.use(sitesRouter(ctx));
   memberApi.use(teamRouter(ctx));
   memberApi.use(outboxRouter(ctx));
+  memberApi.use(syncRouter(ctx));
+  memberApi.use(photosRouter(ctx));
 
   const api = express.Router();
-  api.use(express.json({ limit: "1mb" }));
+  api.use(express.json({ limit: "4mb" }));
   api.use(sameOriginWrites(config.publicOrigin));
   api.use(loadActor(ctx, authConfig));
   api.use(publicApi);

@@ -2,6 +2,7 @@ import type { Db } from "../db/client";
 import type { ServerConfig } from "./config";
 import type { Logger } from "./logger";
 import type { Mailer } from "./mail/mailer";
+import type { ObjectStore } from "./storage/object-store";
 
 /** What every router gets: built once at start-up, no global state. */
 export interface AppContext {
@@ -9,4 +10,5 @@ export interface AppContext {
   config: ServerConfig;
   logger: Logger;
   mailer: Mailer;
+  objects: ObjectStore;
 }

@@ -7,6 +7,8 @@ import type { AppContext } from "./context";
 import { createLogger, type Logger } from "./logger";
 import { createMailer } from "./mail/mailer";
 import { startSmtpSink, type CapturedMail, type SmtpSink } from "./mail/smtp-sink";
+import { startLocalObjectStore } from "./storage/local-object-store";
+import { createObjectStore } from "./storage/object-store";
 
 export interface RunningServer {
   server: Server;
@@ -29,7 +31,10 @@ export async function startServer(config: ServerConfig, { logger = createLogger(
   await runMigrations(db);
   const sink = config.mailSink ? await startSmtpSink(db, { port: config.sinkPort ?? 0, onMail }) : undefined;
   const mailer = createMailer({ smtpUrl: config.smtpUrl, sinkPort: sink?.port, from: config.mailFrom });
-  const ctx: AppContext = { db, config, logger, mailer };
+  const localObjects = config.s3.endpoint ? undefined : await startLocalObjectStore(config.objectsDir);
+  const objects = createObjectStore(localObjects ? { ...config.s3, ...localObjects.credentials, endpoint: localObjects.endpoint } : { ...config.s3, endpoint: config.s3.endpoint! });
+  await objects.ensureBucket();
+  const ctx: AppContext = { db, config, logger, mailer, objects };
   const app = createApp(ctx);
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(config.port, config.host);
@@ -41,6 +46,7 @@ export async function startServer(config: ServerConfig, { logger = createLogger(
     });
   }).catch(async (err) => {
     await sink?.close();
+    await localObjects?.close();
     await db.$client.end();
     throw err;
   });
@@ -59,6 +65,7 @@ export async function startServer(config: ServerConfig, { logger = createLogger(
         server.closeIdleConnections();
       })
         .then(() => sink?.close())
+        .then(() => localObjects?.close())
         .then(() => db.$client.end());
       return closing;
     },

@@ -3,9 +3,9 @@
 // (those are the walk's gaps). The rules run on the devices that are complete enough.
 import * as v from "valibot";
 import { BatteryBackupSchema } from "./model/battery";
-import { deviceEntries } from "./model/device";
-import { PoeSwitchSchema, InjectorSchema, OutletSourceSchema } from "./model/power-source";
-import { FloorSchema, RoomSchema } from "./model/site";
+import { DeviceSchema, deviceEntries } from "./model/device";
+import { InjectorSchema, OutletSourceSchema, PoeSwitchSchema, PowerSourceSchema } from "./model/power-source";
+import { FloorSchema, RoomSchema, type SiteInput } from "./model/site";
 import { fieldErrors, type FieldErrors } from "./validation";
 
 export const ITEM_KINDS = ["floor", "room", "device", "source", "battery"] as const;
@@ -75,4 +75,67 @@ export interface SiteItem {
   data: Record<string, unknown>;
   deleted: boolean;
   version: number;
+}
+
+export interface AssembledSite {
+  /** The site as the rules take it: complete items only. */
+  site: SiteInput;
+  /** Devices not complete enough for the rules yet (their gaps say what is missing). */
+  incompleteDeviceIds: string[];
+}
+
+/**
+ * Builds the rules' Site from a site's captured items. Devices that fail the full device schema
+ * are left out (they are gaps, not errors) so the rules can still advise on the rest.
+ */
+export function assembleSite(meta: { id: string; name: string; address?: string; closetRoomId: string | null; settings?: Record<string, unknown> }, siteItems: readonly SiteItem[]): AssembledSite {
+  const live = siteItems.filter((i) => !i.deleted);
+  const pick = (kind: ItemKind): (Record<string, unknown> & { id: string })[] => live.filter((i) => i.kind === kind).map((i) => ({ ...i.data, id: i.id }));
+  const floors = pick("floor").filter((f) => v.is(FloorSchema, f));
+  const floorIds = new Set(floors.map((f) => f.id));
+  const rooms = pick("room")
+    .filter((r) => v.is(RoomSchema, r) && floorIds.has((r as { floorId: string }).floorId))
+    .map(({ notes: _notes, ...r }) => r);
+  const roomIds = new Set(rooms.map((r) => r.id));
+  const sources = pick("source").filter((s) => v.is(PowerSourceSchema, s));
+  const sourceIds = new Set(sources.map((s) => s.id));
+  const incompleteDeviceIds: string[] = [];
+  const devices = pick("device").flatMap(({ notes: _notes, ...d }) => {
+    const parsed = v.safeParse(DeviceSchema, d);
+    if (!parsed.success || !roomIds.has(parsed.output.roomId)) {
+      incompleteDeviceIds.push(d.id);
+      return [];
+    }
+    // A hand-picked source that is gone (or not captured yet) is dropped rather than failing the site.
+    if (parsed.output.sourceId && !sourceIds.has(parsed.output.sourceId)) return [{ ...d, sourceId: undefined, port: undefined }];
+    return [d];
+  });
+  const closetRoomId = meta.closetRoomId && roomIds.has(meta.closetRoomId) ? meta.closetRoomId : (rooms[0]?.id ?? "");
+  return {
+    site: {
+      id: meta.id,
+      name: meta.name,
+      address: meta.address,
+      floors,
+      rooms,
+      closetRoomId,
+      settings: meta.settings ?? {},
+      powerSources: sources,
+      batteries: pick("battery").filter((b) => v.is(BatteryBackupSchema, b)),
+      devices,
+    } as SiteInput,
+    incompleteDeviceIds,
+  };
+}
+
+/** The other way: a whole Site as items (the demo seed, imports). */
+export function itemsOfSite(site: SiteInput): { kind: ItemKind; id: string; data: Record<string, unknown> }[] {
+  const as = (kind: ItemKind, list: readonly { id: string }[] | undefined) => (list ?? []).map((x) => ({ kind, id: x.id, data: { ...x } as Record<string, unknown> }));
+  return [
+    ...as("floor", site.floors),
+    ...as("room", site.rooms),
+    ...as("source", site.powerSources),
+    ...as("battery", site.batteries),
+    ...as("device", site.devices),
+  ];
 }

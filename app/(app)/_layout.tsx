@@ -3,22 +3,43 @@ import { ActivityIndicator, View } from "react-native";
 import { AppShell } from "@/components/shell/app-shell";
 import { navItemsFor } from "@/components/shell/nav-items";
 import { OfflineBadge } from "@/components/shell/session-badge";
-import { colors } from "@/constants/theme";
+import { Banner } from "@/components/ui/banner";
+import { colors, space } from "@/constants/theme";
 import { useSession } from "@/hooks/queries/me";
+import { LocalStoreProvider } from "@/hooks/use-local-store";
+
+function Centered({ children }: { children: React.ReactNode }) {
+  return <View style={{ flex: 1, alignItems: "center", justifyContent: "center", backgroundColor: colors.paper, padding: space.xl }}>{children}</View>;
+}
 
 export default function SignedInLayout() {
   const session = useSession();
   if (session.isPending) {
     return (
-      <View style={{ flex: 1, alignItems: "center", justifyContent: "center", backgroundColor: colors.paper }}>
+      <Centered>
         <ActivityIndicator color={colors.slate800} />
-      </View>
+      </Centered>
     );
   }
   if (!session.data || session.data.status === "signed-out") return <Redirect href="/sign-in" />;
-  return (
-    <AppShell items={navItemsFor(session.data.me.role)} footer={session.data.offline ? <OfflineBadge /> : undefined}>
+  const { me, offline } = session.data;
+  const shell = (
+    <AppShell items={navItemsFor(me.role)} footer={offline ? <OfflineBadge /> : undefined}>
       <Slot />
     </AppShell>
+  );
+  if (me.role === "client") return shell;
+  // The team works from the phone's own store, online or not.
+  return (
+    <LocalStoreProvider
+      userId={me.user.id}
+      fallback={(state) => (
+        <Centered>
+          {state.status === "failed" ? <Banner tone="danger" title="This browser cannot keep a walk offline">{state.message}</Banner> : <ActivityIndicator color={colors.slate800} />}
+        </Centered>
+      )}
+    >
+      {shell}
+    </LocalStoreProvider>
   );
 }

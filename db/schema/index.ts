@@ -2,3 +2,4 @@ export * from "./enums";
 export * from "./teams";
 export * from "./sites";
 export * from "./auth";
+export * from "./sync";

@@ -13,8 +13,11 @@ export const sites = pgTable(
     address: text().notNull().default(""),
     status: siteStatus().notNull().default("surveying"),
     clientUserId: text().references(() => users.id, { onDelete: "set null" }),
+    /** The room holding the network closet, where every run ends (an item id). */
+    closetRoomId: text(),
     /** Site-wide settings for the rules (units, planning ceiling, …), validated by survey/. */
     settings: jsonb().notNull().default({}),
+    /** Team version of the last change to the site's own fields (name, status, closet…). */
     version: bigint({ mode: "number" }).notNull().default(0),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
@@ -52,7 +55,9 @@ export const items = pgTable(
       .notNull()
       .references(() => sites.id, { onDelete: "cascade" }),
     kind: itemKind().notNull(),
-    data: jsonb().notNull(),
+    data: jsonb().$type<Record<string, unknown>>().notNull(),
+    /** For each field: the team version and the client that last set it (finds same-field conflicts). */
+    fieldVersions: jsonb().$type<Record<string, { v: number; c: string }>>().notNull().default({}),
     deleted: boolean().notNull().default(false),
     version: bigint({ mode: "number" }).notNull(),
     updatedBy: text().references(() => users.id, { onDelete: "set null" }),

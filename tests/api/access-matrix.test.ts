@@ -5,7 +5,7 @@ import request from "supertest";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DEMO_PASSWORD } from "../../db/demo-accounts";
 import { DEMO_SITE_ID, seedDemoOnce } from "../../db/seed";
-import { invites, memberships, teams, users } from "../../db/schema";
+import { invites, memberships, photos, teams, users } from "../../db/schema";
 import { createApp } from "../../server/app";
 import { hashPassword } from "../../server/auth/passwords";
 import { newInviteToken } from "../../server/services/invite-tokens";
@@ -56,6 +56,9 @@ async function addInvite(teamId: string) {
   await testDb.db.insert(invites).values({ id, teamId, email: `${randomUUID()}@invited.test`, role: "surveyor", tokenHash, expiresAt: new Date(Date.now() + 86_400_000) });
   return { id, token };
 }
+
+const JPEG = Buffer.concat([Buffer.from([0xff, 0xd8, 0xff, 0xe0]), Buffer.alloc(64, 1)]);
+const DEMO_PHOTO_ID = randomUUID();
 
 const siteWrite = { anonymous: 401, admin: 200, designer: 200, surveyor: 403, otherSurveyor: 404, client: 403, otherTeam: 404 };
 
@@ -114,6 +117,26 @@ const ROWS: Row[] = [
     expect: { anonymous: 401, admin: 204, designer: 403, surveyor: 403, otherSurveyor: 403, client: 403, otherTeam: 404 },
   },
   {
+    route: "POST /sync/push",
+    make: () => ({ path: "/api/sync/push", body: { clientId: randomUUID(), mutations: [] } }),
+    expect: MEMBERS(200),
+  },
+  {
+    route: "POST /sync/pull",
+    make: () => ({ path: "/api/sync/pull", body: { clientId: randomUUID(), cursor: 0, knownSiteIds: [] } }),
+    expect: MEMBERS(200),
+  },
+  {
+    route: "POST /photos",
+    make: () => ({ path: "/api/photos", body: { upload: randomUUID() } }),
+    expect: { anonymous: 401, admin: 201, designer: 201, surveyor: 201, otherSurveyor: 404, client: 403, otherTeam: 404 },
+  },
+  {
+    route: "GET /photos/:photoId",
+    make: () => ({ path: `/api/photos/${DEMO_PHOTO_ID}` }),
+    expect: { anonymous: 401, admin: 200, designer: 200, surveyor: 200, otherSurveyor: 404, client: 200, otherTeam: 404 },
+  },
+  {
     route: "GET /outbox",
     make: () => ({ path: "/api/outbox" }),
     expect: { anonymous: 401, admin: 200, designer: 403, surveyor: 403, otherSurveyor: 403, client: 403, otherTeam: 200 },
@@ -126,6 +149,7 @@ beforeAll(async () => {
   await addMember("team_lanternfield", "surveyor", EMAILS.otherSurveyor);
   await testDb.db.insert(teams).values({ id: "team_brightwire", name: "Brightwire Installs" });
   await addMember("team_brightwire", "admin", EMAILS.otherTeam);
+  await testDb.db.insert(photos).values({ id: DEMO_PHOTO_ID, teamId: "team_lanternfield", siteId: DEMO_SITE_ID, mime: "image/jpeg", size: 68, objectKey: "demo/photo.jpg", version: 1 });
   app = createApp(testContext(testDb.db));
   agents.anonymous = request.agent(app);
   for (const [caller, email] of Object.entries(EMAILS)) agents[caller as Caller] = await signInWithPassword(app, email, DEMO_PASSWORD);
@@ -139,6 +163,7 @@ async function clientAgent(): Promise<Agent> {
   const { createHash, randomBytes } = await import("node:crypto");
   const { verificationTokens } = await import("../../db/schema");
   const ctx = testContext(testDb.db);
+  await ctx.objects.put("demo/photo.jpg", JPEG, "image/jpeg");
   const token = randomBytes(16).toString("hex");
   // Auth.js stores sha256(token + secret) and compares with the hashed token from the link.
   const hashed = createHash("sha256").update(`${token}${ctx.config.authSecret}`).digest("hex");
@@ -168,7 +193,9 @@ describe("access matrix", () => {
           const cell = await row.make(caller);
           const method = row.route.split(" ")[0].toLowerCase() as "get" | "post" | "put" | "patch" | "delete";
           let req = agents[caller][method](cell.path);
-          if (cell.body !== undefined) req = req.send(cell.body as object);
+          const upload = (cell.body as { upload?: string } | undefined)?.upload;
+          if (upload) req = req.field("id", upload).field("siteId", DEMO_SITE_ID).attach("file", JPEG, "photo.jpg");
+          else if (cell.body !== undefined) req = req.send(cell.body as object);
           const res = await req;
           expect({ status: res.status, body: res.status >= 400 ? res.body : "ok" }).toMatchObject({ status: row.expect[caller] });
           if (res.status >= 400) expect(res.body.error.message).toEqual(expect.any(String));

@@ -1,4 +1,6 @@
 import { randomBytes } from "node:crypto";
+import fs from "node:fs";
+import os from "node:os";
 // A real Dropwise server on a free port, against a database of its own, for API and browser tests.
 import path from "node:path";
 import pino from "pino";
@@ -6,6 +8,7 @@ import type { Db } from "../../db/client";
 import { seedDemoOnce } from "../../db/seed";
 import type { AppContext } from "../../server/context";
 import { createMailer } from "../../server/mail/mailer";
+import { memoryObjectStore } from "./memory-object-store";
 import { projectRoot, readConfig, type ServerConfig } from "../../server/config";
 import { startServer, type RunningServer } from "../../server/index";
 import { createTestDb, type TestDb } from "./test-db";
@@ -42,6 +45,7 @@ export function testConfig(overrides: Partial<ServerConfig> = {}): ServerConfig 
     webDist: path.join(projectRoot, "dist"),
     authSecret: randomBytes(32).toString("base64url"),
     authRateLimit: 1000,
+    objectsDir: fs.mkdtempSync(path.join(os.tmpdir(), "dropwise-objects-")),
     ...overrides,
   });
 }
@@ -49,5 +53,5 @@ export function testConfig(overrides: Partial<ServerConfig> = {}): ServerConfig 
 /** An app context without a running server, for supertest against createApp(); mail is not delivered. */
 export function testContext(db: Db, overrides: Partial<ServerConfig> = {}): AppContext {
   const config = testConfig({ databaseUrl: "postgres://unused", ...overrides });
-  return { db, config, logger: pino({ level: "silent" }), mailer: createMailer({ transport: { jsonTransport: true }, from: config.mailFrom }) };
+  return { db, config, logger: pino({ level: "silent" }), mailer: createMailer({ transport: { jsonTransport: true }, from: config.mailFrom }), objects: memoryObjectStore() };
 }

@@ -17,6 +17,11 @@ import { colors } from "@/constants/theme";
 // TanStack Query assumes "online" at start: tell it the truth, or work restored offline is lost.
 if (typeof navigator !== "undefined") onlineManager.setOnline(navigator.onLine);
 
+// Keep the app itself on the phone so it opens with no signal (the server generates /sw.js).
+if (typeof navigator !== "undefined" && "serviceWorker" in navigator && process.env.NODE_ENV === "production") {
+  navigator.serviceWorker.register("/sw.js").catch(() => undefined);
+}
+
 const persister = createSyncStoragePersister({ storage: typeof window !== "undefined" ? window.localStorage : undefined, key: "dropwise.queries.v1" });
 
 export function AppProviders({ children }: { children: ReactNode }) {

@@ -15,6 +15,7 @@ import { invitesRouter } from "./routes/invites";
 import { meRouter, sessionRouter } from "./routes/me";
 import { outboxRouter } from "./routes/outbox";
 import { photosRouter } from "./routes/photos";
+import { rulesRouter } from "./routes/rules";
 import { sitesRouter } from "./routes/sites";
 import { syncRouter } from "./routes/sync";
 import { teamRouter } from "./routes/team";
@@ -75,6 +76,7 @@ export function createApp(ctx: AppContext) {
   memberApi.use(outboxRouter(ctx));
   memberApi.use(syncRouter(ctx));
   memberApi.use(photosRouter(ctx));
+  memberApi.use(rulesRouter(ctx));
 
   const api = express.Router();
   api.use(express.json({ limit: "4mb" }));

@@ -1,11 +1,18 @@
 import fs from "node:fs";
 import path from "node:path";
 import express, { Router } from "express";
+import { serviceWorkerScript } from "./service-worker";
 
 /** Serves the exported web build, with the single-page fallback for client-side routes. */
 export function webRouter(distDir: string) {
   const router = Router();
   const indexFile = path.join(distDir, "index.html");
+  router.get("/sw.js", (_req, res) => {
+    res.setHeader("Content-Type", "text/javascript; charset=utf-8");
+    res.setHeader("Cache-Control", "no-cache");
+    res.setHeader("Service-Worker-Allowed", "/");
+    res.send(serviceWorkerScript(distDir));
+  });
   router.use(
     express.static(distDir, {
       index: false,

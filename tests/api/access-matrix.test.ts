@@ -7,6 +7,7 @@ import { DEMO_PASSWORD } from "../../db/demo-accounts";
 import { DEMO_SITE_ID, seedDemoOnce } from "../../db/seed";
 import { invites, memberships, photos, teams, users } from "../../db/schema";
 import { createApp } from "../../server/app";
+import { demoSiteInput } from "../../survey/demo-site";
 import { hashPassword } from "../../server/auth/passwords";
 import { newInviteToken } from "../../server/services/invite-tokens";
 import { signInWithPassword, type Agent } from "../support/auth-client";
@@ -136,6 +137,7 @@ const ROWS: Row[] = [
     make: () => ({ path: `/api/photos/${DEMO_PHOTO_ID}` }),
     expect: { anonymous: 401, admin: 200, designer: 200, surveyor: 200, otherSurveyor: 404, client: 200, otherTeam: 404 },
   },
+  { route: "POST /rules/evaluate", make: () => ({ path: "/api/rules/evaluate", body: demoSiteInput }), expect: MEMBERS(200) },
   {
     route: "GET /outbox",
     make: () => ({ path: "/api/outbox" }),

@@ -15,6 +15,8 @@ import { invitesRouter } from "./routes/invites";
 import { meRouter, sessionRouter } from "./routes/me";
 import { outboxRouter } from "./routes/outbox";
 import { photosRouter } from "./routes/photos";
+import { paymentsWebhookRouter } from "./routes/payments-webhook";
+import { reportsRouter } from "./routes/reports";
 import { rulesRouter } from "./routes/rules";
 import { sitesRouter } from "./routes/sites";
 import { syncRouter } from "./routes/sync";
@@ -61,6 +63,9 @@ export function createApp(ctx: AppContext) {
   app.post(["/auth/callback/credentials", "/auth/signin/nodemailer"], signInLimiter);
   app.use("/auth", ExpressAuth(authConfig));
 
+  // Signed webhooks need the raw body: before the JSON parser.
+  app.use(paymentsWebhookRouter(ctx));
+
   // Public API: no session needed.
   const publicApi = express.Router();
   publicApi.use(healthRouter(ctx));
@@ -77,6 +82,7 @@ export function createApp(ctx: AppContext) {
   memberApi.use(syncRouter(ctx));
   memberApi.use(photosRouter(ctx));
   memberApi.use(rulesRouter(ctx));
+  memberApi.use(reportsRouter(ctx));
 
   const api = express.Router();
   api.use(express.json({ limit: "4mb" }));

@@ -25,6 +25,9 @@ const EnvSchema = v.object({
   S3_ACCESS_KEY_ID: v.optional(v.string(), ""),
   S3_SECRET_ACCESS_KEY: v.optional(v.string(), ""),
   DROPWISE_DATA_DIR: v.optional(v.string()),
+  PAYMENTS_SECRET_KEY: v.optional(v.string()),
+  PAYMENTS_WEBHOOK_SECRET: v.optional(v.string()),
+  PAYMENTS_API_ORIGIN: v.optional(v.pipe(v.string(), v.url("PAYMENTS_API_ORIGIN must be a URL."))),
   AUTH_RATE_LIMIT: v.optional(v.pipe(v.string(), v.transform(Number), v.integer(), v.minValue(1)), "20"),
 });
 
@@ -51,6 +54,8 @@ export interface ServerConfig {
   objectsDir: string;
   /** Largest photo accepted, in bytes. */
   maxPhotoBytes: number;
+  /** The payments provider for deposits; without a key a local fake provider starts. */
+  payments: { secretKey?: string; webhookSecret?: string; apiOrigin?: string };
 }
 
 export const projectRoot = path.resolve(import.meta.dirname, "..");
@@ -81,5 +86,6 @@ export function readConfig(env: Record<string, string | undefined> = process.env
     s3: overrides.s3 ?? { endpoint: e.S3_ENDPOINT, bucket: e.S3_BUCKET, region: e.S3_REGION, accessKeyId: e.S3_ACCESS_KEY_ID, secretAccessKey: e.S3_SECRET_ACCESS_KEY },
     objectsDir: overrides.objectsDir ?? path.join(e.DROPWISE_DATA_DIR ?? path.join(projectRoot, ".data"), "objects"),
     maxPhotoBytes: overrides.maxPhotoBytes ?? 12 * 1024 * 1024,
+    payments: overrides.payments ?? { secretKey: e.PAYMENTS_SECRET_KEY, webhookSecret: e.PAYMENTS_WEBHOOK_SECRET, apiOrigin: e.PAYMENTS_API_ORIGIN },
   };
 }

@@ -2,6 +2,7 @@ import type { Db } from "../db/client";
 import type { ServerConfig } from "./config";
 import type { Logger } from "./logger";
 import type { Mailer } from "./mail/mailer";
+import type { Payments } from "./payments/payments";
 import type { ObjectStore } from "./storage/object-store";
 
 /** What every router gets: built once at start-up, no global state. */
@@ -11,4 +12,6 @@ export interface AppContext {
   logger: Logger;
   mailer: Mailer;
   objects: ObjectStore;
+  /** Deposits; absent when no provider is configured (tests that drive the app directly). */
+  payments?: Payments;
 }

@@ -9,6 +9,8 @@ import { createMailer } from "./mail/mailer";
 import { startSmtpSink, type CapturedMail, type SmtpSink } from "./mail/smtp-sink";
 import { startLocalObjectStore } from "./storage/local-object-store";
 import { createObjectStore } from "./storage/object-store";
+import { startFakePaymentProvider } from "./payments/fake-payment-provider";
+import { createPayments } from "./payments/payments";
 
 export interface RunningServer {
   server: Server;
@@ -34,7 +36,12 @@ export async function startServer(config: ServerConfig, { logger = createLogger(
   const localObjects = config.s3.endpoint ? undefined : await startLocalObjectStore(config.objectsDir);
   const objects = createObjectStore(localObjects ? { ...config.s3, ...localObjects.credentials, endpoint: localObjects.endpoint } : { ...config.s3, endpoint: config.s3.endpoint! });
   await objects.ensureBucket();
-  const ctx: AppContext = { db, config, logger, mailer, objects };
+  let publicUrl = config.publicOrigin;
+  const fakePayments = config.payments.secretKey ? undefined : await startFakePaymentProvider({ webhookUrl: () => `${publicUrl}/api/payments/webhook` });
+  const payments = fakePayments
+    ? createPayments({ secretKey: fakePayments.secretKey, webhookSecret: fakePayments.webhookSecret, apiOrigin: fakePayments.origin })
+    : createPayments({ secretKey: config.payments.secretKey!, webhookSecret: config.payments.webhookSecret ?? "", apiOrigin: config.payments.apiOrigin });
+  const ctx: AppContext = { db, config, logger, mailer, objects, payments };
   const app = createApp(ctx);
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(config.port, config.host);
@@ -47,11 +54,14 @@ export async function startServer(config: ServerConfig, { logger = createLogger(
   }).catch(async (err) => {
     await sink?.close();
     await localObjects?.close();
+    await fakePayments?.close();
     await db.$client.end();
     throw err;
   });
   const address = server.address();
   const port = typeof address === "object" && address ? address.port : config.port;
+  // The fake provider posts its webhooks to where this server really listens.
+  publicUrl = `http://${config.host}:${port}`;
   let closing: Promise<void> | undefined;
   return {
     server,
@@ -66,6 +76,7 @@ export async function startServer(config: ServerConfig, { logger = createLogger(
       })
         .then(() => sink?.close())
         .then(() => localObjects?.close())
+        .then(() => fakePayments?.close())
         .then(() => db.$client.end());
       return closing;
     },

@@ -67,23 +67,7 @@ export async function pushChanges(db: Db, actor: Actor, request: PushRequest): P
       }
     }
 
-    const dirtyItems = [...state.items.values()].filter((i) => i.version === version);
-    for (let i = 0; i < dirtyItems.length; i += 1000) {
-      await tx
-        .insert(items)
-        .values(dirtyItems.slice(i, i + 1000))
-        .onConflictDoUpdate({
-          target: items.id,
-          set: {
-            data: sql`excluded.data`,
-            fieldVersions: sql`excluded.field_versions`,
-            deleted: sql`excluded.deleted`,
-            version: sql`excluded.version`,
-            updatedBy: sql`excluded.updated_by`,
-            updatedAt: sql`now()`,
-          },
-        });
-    }
+    await writeDirtyItems(tx, state, version);
     for (const site of state.sites.values()) {
       if (site.version === version) {
         await tx.update(sites).set({ closetRoomId: site.closetRoomId, settings: site.settings, version, updatedAt: new Date() }).where(eq(sites.id, site.id));
@@ -96,6 +80,26 @@ export async function pushChanges(db: Db, actor: Actor, request: PushRequest): P
     await tx.update(teams).set({ version }).where(eq(teams.id, actor.teamId));
     return { lastMutationId };
   });
+}
+
+async function writeDirtyItems(tx: Tx, state: State, version: number) {
+  const dirtyItems = [...state.items.values()].filter((i) => i.version === version);
+  for (let i = 0; i < dirtyItems.length; i += 1000) {
+    await tx
+      .insert(items)
+      .values(dirtyItems.slice(i, i + 1000))
+      .onConflictDoUpdate({
+        target: items.id,
+        set: {
+          data: sql`excluded.data`,
+          fieldVersions: sql`excluded.field_versions`,
+          deleted: sql`excluded.deleted`,
+          version: sql`excluded.version`,
+          updatedBy: sql`excluded.updated_by`,
+          updatedAt: sql`now()`,
+        },
+      });
+  }
 }
 
 interface State {
@@ -215,4 +219,43 @@ function applyOne(m: Mutation, ctx: ApplyContext) {
 export async function bumpSiteVersion(tx: Tx | Db, teamId: string, siteId: string) {
   const [team] = await tx.update(teams).set({ version: sql`${teams.version} + 1` }).where(eq(teams.id, teamId)).returning({ version: teams.version });
   await tx.update(sites).set({ version: team.version }).where(and(eq(sites.id, siteId), eq(sites.teamId, teamId)));
+}
+
+/** One change to an item made away from a phone (the designer's desk): set fields, or delete. */
+export type ItemChange =
+  | { op: "put"; itemId: string; siteId: string; kind: ItemRow["kind"]; fields: Record<string, unknown> }
+  | { op: "delete"; itemId: string; siteId: string };
+
+/**
+ * Applies item changes for a caller that is not a phone, inside the caller's transaction, with the
+ * same merge and validation as a push: one team version bump, every touched row stamped with it
+ * (and its fields with the caller's client id), so phones pull the changes. A refused change
+ * throws a 409 and the caller's transaction rolls back. Returns the new team version (or the
+ * current one when there was nothing to change).
+ */
+export async function applyItemChanges(tx: Tx, actor: Actor, changes: readonly ItemChange[], clientId = `desk:${actor.userId}`): Promise<number> {
+  const [team] = await tx.select({ version: teams.version }).from(teams).where(eq(teams.id, actor.teamId)).for("update");
+  if (changes.length === 0) return team.version;
+  const version = team.version + 1;
+  const mutations: Mutation[] = changes.map((c, i) =>
+    c.op === "put"
+      ? { id: i + 1, name: "item.put", args: { itemId: c.itemId, siteId: c.siteId, kind: c.kind, fields: c.fields, baseVersion: 0 } }
+      : { id: i + 1, name: "item.delete", args: { itemId: c.itemId, siteId: c.siteId } },
+  );
+  const state = await loadState(tx, mutations);
+  const conflicts: (typeof itemConflicts.$inferInsert)[] = [];
+  for (const m of mutations) {
+    // The desk read the rows it changes in this transaction: its base is the current version.
+    if (m.name === "item.put") m.args.baseVersion = state.items.get(m.args.itemId)?.version ?? 0;
+    try {
+      applyOne(m, { actor, clientId, version, state, conflicts });
+    } catch (err) {
+      if (err instanceof Rejected) throw new HttpError(409, err.code, err.message);
+      throw err;
+    }
+  }
+  await writeDirtyItems(tx, state, version);
+  if (conflicts.length) await tx.insert(itemConflicts).values(conflicts);
+  await tx.update(teams).set({ version }).where(eq(teams.id, actor.teamId));
+  return version;
 }

@@ -61,6 +61,15 @@ async function addInvite(teamId: string) {
 const JPEG = Buffer.concat([Buffer.from([0xff, 0xd8, 0xff, 0xe0]), Buffer.alloc(64, 1)]);
 const DEMO_PHOTO_ID = randomUUID();
 
+/** Publishes a new version of the demo site's report (as the designer) and returns its id. */
+async function freshReport(): Promise<string> {
+  const res = await agents.designer.post(`/api/sites/${DEMO_SITE_ID}/reports`).send({});
+  if (res.status !== 201) throw new Error(`publish failed: ${res.status} ${JSON.stringify(res.body)}`);
+  return res.body.report.id;
+}
+
+const siteRead = { anonymous: 401, admin: 200, designer: 200, surveyor: 200, otherSurveyor: 404, client: 200, otherTeam: 404 };
+
 const siteWrite = { anonymous: 401, admin: 200, designer: 200, surveyor: 403, otherSurveyor: 404, client: 403, otherTeam: 404 };
 
 const ROWS: Row[] = [
@@ -138,6 +147,26 @@ const ROWS: Row[] = [
     expect: { anonymous: 401, admin: 200, designer: 200, surveyor: 200, otherSurveyor: 404, client: 200, otherTeam: 404 },
   },
   { route: "POST /rules/evaluate", make: () => ({ path: "/api/rules/evaluate", body: demoSiteInput }), expect: MEMBERS(200) },
+  { route: "POST /sites/:siteId/reports", make: () => ({ path: `/api/sites/${DEMO_SITE_ID}/reports`, body: {} }), expect: { ...siteWrite, admin: 201, designer: 201 } },
+  { route: "GET /sites/:siteId/reports", make: () => ({ path: `/api/sites/${DEMO_SITE_ID}/reports` }), expect: siteRead },
+  { route: "GET /reports/:reportId", make: async () => ({ path: `/api/reports/${await freshReport()}` }), expect: siteRead },
+  { route: "GET /reports/:reportId/pdf", make: async () => ({ path: `/api/reports/${await freshReport()}/pdf` }), expect: siteRead },
+  {
+    route: "POST /reports/:reportId/comments",
+    make: async () => ({ path: `/api/reports/${await freshReport()}/comments`, body: { itemRef: "general", body: "Looks good." } }),
+    expect: { ...siteRead, admin: 201, designer: 201, surveyor: 201, client: 201 },
+  },
+  {
+    route: "POST /reports/:reportId/signoff",
+    // The client types the name on their account (another row renames everyone).
+    make: async () => ({ path: `/api/reports/${await freshReport()}/signoff`, body: { typedName: (await agents.client.get("/api/me")).body.user.name, confirm: true } }),
+    expect: { anonymous: 401, admin: 403, designer: 403, surveyor: 403, otherSurveyor: 404, client: 201, otherTeam: 404 },
+  },
+  {
+    route: "PUT /team/deposit",
+    make: () => ({ path: "/api/team/deposit", body: { enabled: false, amountCents: 0 } }),
+    expect: { anonymous: 401, admin: 200, designer: 403, surveyor: 403, otherSurveyor: 403, client: 403, otherTeam: 200 },
+  },
   {
     route: "GET /outbox",
     make: () => ({ path: "/api/outbox" }),

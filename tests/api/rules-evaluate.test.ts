@@ -28,7 +28,7 @@ describe("POST /api/rules/evaluate", () => {
   });
 
   it("names each bad field: negative watts, a class that does not exist, a 10 km run, a barrel that does not exist", async () => {
-    const bad = structuredClone(demoSiteInput) as typeof demoSiteInput & { devices: Record<string, unknown>[] };
+    const bad = structuredClone(demoSiteInput) as unknown as { devices: Record<string, unknown>[] };
     bad.devices[0] = { ...bad.devices[0], power: { by: "watts", watts: -5 } };
     bad.devices[1] = { ...bad.devices[1], input: { type: "poe", class: 9 } };
     bad.devices[2] = { ...bad.devices[2], run: { lengthM: 10_000, category: "cat6" } };

@@ -20,8 +20,9 @@ export interface TestServer extends RunningServer {
   stop(): Promise<void>;
 }
 
-export async function startTestServer({ seed = true, config: overrides = {} }: { seed?: boolean; config?: Partial<ServerConfig> } = {}): Promise<TestServer> {
-  const testDb = await createTestDb();
+export async function startTestServer({ seed = true, config: overrides = {}, reuse }: { seed?: boolean; config?: Partial<ServerConfig>; reuse?: TestDb } = {}): Promise<TestServer> {
+  // `reuse` restarts a server over an existing test database (its data must survive).
+  const testDb = reuse ?? (await createTestDb());
   // A fixed free port, so the public origin (and every link in captured mail) is the real address.
   const port = overrides.port ?? (await findFreePort(42_000, 8000));
   const config = testConfig({ databaseUrl: testDb.url, port, publicOrigin: `http://127.0.0.1:${port}`, ...overrides });
@@ -32,7 +33,7 @@ export async function startTestServer({ seed = true, config: overrides = {} }: {
     testDb,
     async stop() {
       await running.close();
-      await testDb.drop();
+      if (!reuse) await testDb.drop();
     },
   };
 }

@@ -1,0 +1,188 @@
+// The recommendation report: what a published version of a plan says, frozen as plain data so it
+// can be hashed, shown on screen, printed to PDF and compared with the next version. Pure.
+import type { SiteEvaluation } from "./rules";
+import type { SiteInput } from "./model/site";
+import { formatLength } from "./units";
+
+export interface ReportDevice {
+  id: string;
+  name: string;
+  kind: string;
+  label: string;
+  recommendation: string;
+  reasons: string[];
+  warnings: string[];
+  mustStayUp: boolean;
+  /** Set when a designer chose differently from the rules, with their reason. */
+  decision: { label: string; reason: string; by: string } | null;
+}
+
+export interface ReportMaterialLine {
+  key: string;
+  description: string;
+  quantity: number;
+  unit: string;
+  unitPrice: number;
+  total: number;
+}
+
+export interface ReportContent {
+  site: { id: string; name: string; address: string };
+  team: string;
+  version: number;
+  publishedAt: string;
+  units: "metric" | "imperial";
+  summary: {
+    devices: number;
+    onPoe: number;
+    onSplitters: number;
+    onExistingOutlets: number;
+    newOutlets: number;
+    cannotPower: number;
+    poeReservedW: number;
+    poeExpectedW: number;
+    staysUpOnBattery: number;
+    mustStayUp: number;
+    shortestRuntimeMin: number | null;
+  };
+  rooms: { id: string; name: string; floor: string; devices: ReportDevice[] }[];
+  switches: { id: string; name: string; standard: string; budgetW: number; ceilingW: number; reservedW: number; expectedW: number; ports: number; portsUsed: number; overBudget: boolean }[];
+  outage: { deviceId: string; name: string; staysUp: boolean; minutes: number | null; reason: string }[];
+  cableRuns: { deviceId: string; name: string; category: string; length: string; ok: boolean; note: string | null }[];
+  materials: { lines: ReportMaterialLine[]; total: number; currency: string };
+  cautions: { id: string; text: string; source: string }[];
+  standards: string[];
+}
+
+/** Where the numbers come from, printed at the end of every report. */
+export const REPORT_STANDARDS = [
+  "IEEE 802.3af/at/bt (Clause 33 and 145): PoE Types 1–4 and Classes 0–8, power at the switch port and at the device",
+  "ANSI/TIA-568 and ISO/IEC 11801: 90 m permanent link, 100 m channel",
+  "TIA TSB-184-A: cable bundles for PoE, Cat 6A for new installations",
+  "AWG conductor resistance (ASTM B258 sizes, annealed copper 1.724 × 10⁻⁸ Ω·m)",
+  "NFPA 70 (NEC) Articles 725 and 800: power-limited and communications cabling; local code decides",
+  "Battery runtime: usable Wh = V × Ah × depth of discharge × inverter efficiency × age derate",
+];
+
+export interface ReportInput {
+  site: SiteInput & { address?: string };
+  team: string;
+  version: number;
+  publishedAt: string;
+  evaluation: SiteEvaluation;
+  decisions: Record<string, { label: string; reason: string; by: string }>;
+  materials: { lines: ReportMaterialLine[]; total: number; currency: string };
+}
+
+const round = (n: number, digits = 1) => Math.round(n * 10 ** digits) / 10 ** digits;
+
+export function buildReportContent(input: ReportInput): ReportContent {
+  const { site, evaluation: ev } = input;
+  const units = ev.units;
+  const floors = new Map((site.floors ?? []).map((f) => [f.id, f.name]));
+  const names = new Map(ev.devices.map((d) => [d.deviceId, d.name]));
+  const by = ev.summary.byRecommendation;
+  const runtimes = ev.outage.devices.filter((o) => o.mustStayUp && o.staysUp && o.minutes !== null).map((o) => o.minutes!);
+  const rooms = (site.rooms ?? [])
+    .map((r) => ({
+      id: r.id,
+      name: r.name,
+      floor: floors.get(r.floorId) ?? "",
+      devices: ev.devices
+        .filter((d) => d.roomId === r.id)
+        .map((d) => ({
+          id: d.deviceId,
+          name: d.name,
+          kind: d.kind,
+          label: input.decisions[d.deviceId]?.label ?? d.label,
+          recommendation: d.recommendation,
+          reasons: [...d.reasons],
+          warnings: d.warnings.filter((w) => w.severity !== "info").map((w) => w.message),
+          mustStayUp: d.mustStayUp,
+          decision: input.decisions[d.deviceId] ?? null,
+        })),
+    }))
+    .filter((r) => r.devices.length > 0);
+  return {
+    site: { id: site.id, name: site.name, address: site.address ?? "" },
+    team: input.team,
+    version: input.version,
+    publishedAt: input.publishedAt,
+    units,
+    summary: {
+      devices: ev.summary.deviceCount,
+      onPoe: by.poe,
+      onSplitters: by.poe_splitter,
+      onExistingOutlets: by.existing_outlet,
+      newOutlets: by.new_outlet,
+      cannotPower: by.cannot_power,
+      poeReservedW: round(ev.summary.poeWatts.reservedW),
+      poeExpectedW: round(ev.summary.poeWatts.expectedW),
+      staysUpOnBattery: ev.summary.mustStayUp.staysUp,
+      mustStayUp: ev.summary.mustStayUp.total,
+      shortestRuntimeMin: runtimes.length ? Math.round(Math.min(...runtimes)) : null,
+    },
+    rooms,
+    switches: ev.switches.map((s) => ({
+      id: s.sourceId,
+      name: s.name,
+      standard: s.standard,
+      budgetW: round(s.budgetW),
+      ceilingW: round(s.ceilingW),
+      reservedW: round(s.reservedW),
+      expectedW: round(s.expectedW),
+      ports: s.ports,
+      portsUsed: s.portsUsed,
+      overBudget: s.overBudget,
+    })),
+    outage: ev.outage.devices
+      .filter((o) => o.mustStayUp || o.staysUp)
+      .map((o) => ({ deviceId: o.deviceId, name: names.get(o.deviceId) ?? o.deviceId, staysUp: o.staysUp, minutes: o.minutes === null ? null : Math.round(o.minutes), reason: o.reason })),
+    cableRuns: ev.cableRuns.map((c) => ({
+      deviceId: c.deviceId,
+      name: names.get(c.deviceId) ?? c.deviceId,
+      category: c.cca ? `${c.category} (copper-clad aluminium)` : c.category,
+      length: formatLength(c.lengthM, units),
+      ok: c.ok,
+      note: c.ok ? null : c.withinChannel ? "Check this run: see the warnings on the device." : "Longer than the 100 m channel: PoE cannot be used on this run.",
+    })),
+    materials: input.materials,
+    cautions: ev.cautions.map((c) => ({ id: c.id, text: c.text, source: c.source })),
+    standards: REPORT_STANDARDS,
+  };
+}
+
+export interface ReportChanges {
+  added: { id: string; name: string }[];
+  removed: { id: string; name: string }[];
+  methodChanged: { id: string; name: string; before: string; after: string }[];
+  totalBefore: number;
+  totalAfter: number;
+}
+
+/** What changed between two published versions: for "what is new since you last looked". */
+export function diffReports(before: ReportContent, after: ReportContent): ReportChanges {
+  const list = (r: ReportContent) => new Map(r.rooms.flatMap((room) => room.devices).map((d) => [d.id, d]));
+  const a = list(before);
+  const b = list(after);
+  return {
+    added: [...b.values()].filter((d) => !a.has(d.id)).map((d) => ({ id: d.id, name: d.name })),
+    removed: [...a.values()].filter((d) => !b.has(d.id)).map((d) => ({ id: d.id, name: d.name })),
+    methodChanged: [...b.values()].flatMap((d) => {
+      const old = a.get(d.id);
+      return old && old.label !== d.label ? [{ id: d.id, name: d.name, before: old.label, after: d.label }] : [];
+    }),
+    totalBefore: before.materials.total,
+    totalAfter: after.materials.total,
+  };
+}
+
+/** A stable serialisation (sorted keys) so the same content always hashes the same. */
+export function canonicalJson(value: unknown): string {
+  if (value === null || typeof value !== "object") return JSON.stringify(value);
+  if (Array.isArray(value)) return `[${value.map(canonicalJson).join(",")}]`;
+  const entries = Object.entries(value as Record<string, unknown>)
+    .filter(([, v]) => v !== undefined)
+    .sort(([x], [y]) => (x < y ? -1 : x > y ? 1 : 0));
+  return `{${entries.map(([k, v]) => `${JSON.stringify(k)}:${canonicalJson(v)}`).join(",")}}`;
+}

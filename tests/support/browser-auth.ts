@@ -1,6 +1,7 @@
 import type { Page } from "playwright-core";
 import { DEMO_PASSWORD } from "../../db/demo-accounts";
 import type { TestServer } from "./test-server";
+import { screenshot } from "./browser";
 import { waitForMail } from "./mail";
 
 /** Signs in through the real sign-in screen, as a person would. */
@@ -10,7 +11,13 @@ export async function signInThroughUi(page: Page, server: TestServer, email: str
   await page.getByRole("textbox", { name: "Password" }).fill(password);
   await page.getByRole("button", { name: "Sign in" }).click();
   await page.waitForURL(`${server.url}/`);
-  await page.getByRole("navigation", { name: "Main" }).waitFor();
+  await page
+    .getByRole("navigation", { name: "Main" })
+    .waitFor({ timeout: 15_000 })
+    .catch(async (err) => {
+      await screenshot(page, `sign-in-stuck-${email.split("@")[0]}`);
+      throw new Error(`signed in as ${email} but no navigation appeared; the page says: ${(await page.locator("body").innerText()).slice(0, 400)}`, { cause: err });
+    });
 }
 
 /** A homeowner asks for a link on the sign-in screen, then opens the captured e-mail's link. */

@@ -1,0 +1,22 @@
+// `npm run bench`: every benchmark, printed as figures and ratios measured in this same run.
+// It reports; it never fails because the machine is slow.
+import { runRulesBench } from "./rules-bench";
+import { runSyncBench } from "./sync-bench";
+
+type Bench = () => Promise<{ name: string; figures: Record<string, number | string> }>;
+
+const BENCHES: Bench[] = [runRulesBench, runSyncBench];
+
+async function main() {
+  for (const bench of BENCHES) {
+    try {
+      const { name, figures } = await bench();
+      console.log(`\n${name}`);
+      for (const [k, v] of Object.entries(figures)) console.log(`  ${k}: ${v}`);
+    } catch (err) {
+      console.log(`\n${bench.name}: could not run (${err instanceof Error ? err.message : String(err)})`);
+    }
+  }
+}
+
+void main();

@@ -4,21 +4,21 @@ import { describe, expect, it } from 'vitest';
 import { evaluateSite, parseSite } from '../../survey/index';
 
 /**
- * survey/RULES.md holds one worked example: the first ```json block is a site,
+ * DEVELOPERS.md holds one worked example (section "Power rules"): the first ```json block is a site,
  * the second is its evaluation. This test keeps the document honest.
  *
  * After a deliberate change to the rules, regenerate the second block with
  *   UPDATE_RULES_DOC=1 npx vitest run tests/survey/worked-example.test.ts
  * and review the diff before committing.
  */
-const DOC = resolve(__dirname, '../../survey/RULES.md');
+const DOC = resolve(__dirname, '../../DEVELOPERS.md');
 const FENCE = /```json\n([\s\S]*?)\n```/g;
 
 function jsonBlocks(md: string): { text: string; index: number }[] {
   return [...md.matchAll(FENCE)].map((m) => ({ text: m[1], index: m.index! }));
 }
 
-describe('survey/RULES.md worked example', () => {
+describe('DEVELOPERS.md worked example', () => {
   const md = readFileSync(DOC, 'utf8');
   const blocks = jsonBlocks(md);
 

@@ -8,7 +8,7 @@ import { createAuthConfig } from "./auth/auth-config";
 import { pinHost } from "./auth/host-pin";
 import type { AppContext } from "./context";
 import { HttpError, apiNotFound, errorHandler } from "./errors";
-import { crossOriginIsolation } from "./middleware/cross-origin-isolation";
+import { securityHeaders } from "./middleware/security-headers";
 import { sameOriginWrites } from "./middleware/same-origin-writes";
 import { healthRouter } from "./routes/health";
 import { invitesRouter } from "./routes/invites";
@@ -17,6 +17,9 @@ import { outboxRouter } from "./routes/outbox";
 import { photosRouter } from "./routes/photos";
 import { paymentsWebhookRouter } from "./routes/payments-webhook";
 import { reportsRouter } from "./routes/reports";
+import { closetRouter } from "./routes/closet";
+import { deskRouter } from "./routes/desk";
+import { planRouter } from "./routes/plan";
 import { rulesRouter } from "./routes/rules";
 import { sitesRouter } from "./routes/sites";
 import { syncRouter } from "./routes/sync";
@@ -55,7 +58,7 @@ export function createApp(ctx: AppContext) {
       autoLogging: { ignore: (req) => !req.url?.startsWith("/api") },
     }),
   );
-  app.use(crossOriginIsolation);
+  app.use(securityHeaders(config.publicOrigin));
   app.use(pinHost(config.publicOrigin));
 
   const authConfig = createAuthConfig(ctx, ctx.mailer);
@@ -82,6 +85,9 @@ export function createApp(ctx: AppContext) {
   memberApi.use(syncRouter(ctx));
   memberApi.use(photosRouter(ctx));
   memberApi.use(rulesRouter(ctx));
+  memberApi.use(planRouter(ctx));
+  memberApi.use(closetRouter(ctx));
+  memberApi.use(deskRouter(ctx));
   memberApi.use(reportsRouter(ctx));
 
   const api = express.Router();

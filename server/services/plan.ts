@@ -4,7 +4,8 @@ import { desc, eq, inArray } from "drizzle-orm";
 import type { Db } from "../../db/client";
 import { decisionHistory, deviceDecisions, items, sitePlans, teams, users } from "../../db/schema";
 import { assembleSite, type SiteItem } from "../../survey/capture";
-import { applyDecisions, type AppliedDecisions, type DecisionCore, type PowerMethod } from "../../survey/decisions";
+import { applyDecision, applyDecisions, defaultSplitter, POWER_METHODS, type AppliedDecisions, type DecisionCore, type PowerMethod, type SplitterChoice } from "../../survey/decisions";
+import type { CableRun, PowerInput } from "../../survey/model/device";
 import { buildMaterials, priceMaterials, type PricedMaterials } from "../../survey/materials";
 import { parseSite } from "../../survey/model/validate";
 import type { PowerSource } from "../../survey/model/power-source";
@@ -205,6 +206,12 @@ export interface PlanDevice extends DeviceEvaluation {
   unassigned: { code: string; reason: string } | null;
   outage: OutageDevice | null;
   pins: { sourceId: string | null; port: number | null };
+  /** What the walk captured that the desk form needs. */
+  captured: { input: PowerInput; run: CableRun | null; outletDistanceM: number | null; outdoor: boolean };
+  /** Methods a decision may choose for it (the others cannot power it). */
+  methods: PowerMethod[];
+  /** The splitter a PoE + splitter decision starts from. */
+  splitterDefault: SplitterChoice | null;
 }
 
 export interface ClosetItem<T> {
@@ -254,6 +261,9 @@ export function buildPlanView(data: PlanData) {
       unassigned: unassignedBy.get(e.deviceId) ?? null,
       outage: outageBy.get(e.deviceId) ?? null,
       pins: { sourceId: d.sourceId ?? null, port: d.port ?? null },
+      captured: { input: d.input, run: d.run ?? null, outletDistanceM: d.outletDistanceM ?? null, outdoor: d.outdoor },
+      methods: POWER_METHODS.filter((method) => applyDecision(d, base[i], { method, reason: "check" }, site.settings).ok),
+      splitterDefault: defaultSplitter(d, base[i]),
       warnings: [...planned.dropped.filter((w) => w.deviceId === e.deviceId), ...e.warnings],
     };
   });

@@ -24,6 +24,7 @@ export async function surveyorsBySite(db: Db, siteIds: string[]): Promise<Map<st
 
 const FORBIDDEN_MESSAGES: Record<SiteAction, string> = {
   "site:read": "You cannot open this site.",
+  "site:plan": "The working plan is for the team; your scope appears when the installer publishes it.",
   "site:capture": "Only the team can change what was captured on this site.",
   "site:manage": "Only a designer or an admin can change this site's plan and people.",
   "site:sign": "Only the homeowner invited to this site can sign off its scope.",

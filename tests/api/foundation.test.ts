@@ -39,6 +39,16 @@ describe("GET /api/health", () => {
     expect(res.headers["x-request-id"]).toMatch(/^[\w-]{8,}$/);
   });
 
+  it("sends a Content-Security-Policy (the browser tests run the whole app under it) and no framework banner", async () => {
+    const res = await request(app).get("/sites/x");
+    const csp = res.headers["content-security-policy"];
+    expect(csp).toContain("default-src 'self'");
+    expect(csp).toContain("script-src 'self' 'wasm-unsafe-eval'");
+    expect(csp).toContain("frame-ancestors 'none'");
+    expect(res.headers["x-content-type-options"]).toBe("nosniff");
+    expect(res.headers["x-powered-by"]).toBeUndefined();
+  });
+
   it("keeps a well-formed incoming request id", async () => {
     const res = await request(app).get("/api/health").set("X-Request-Id", "trace-12345678");
     expect(res.headers["x-request-id"]).toBe("trace-12345678");

@@ -9,11 +9,17 @@ import { items, memberships, siteAssignments, sites, teams, users } from "./sche
 
 export const DEMO_SITE_ID = "site_larchmere";
 
+const SEED_LOCK = 7_140_552;
+
 export async function seedDemoOnce(db: Db): Promise<boolean> {
   const existing = await db.select({ n: sql<number>`count(*)::int` }).from(teams);
   if ((existing[0]?.n ?? 0) > 0) return false;
   const passwordHash = await hash(DEMO_PASSWORD);
-  await db.transaction(async (tx) => {
+  return db.transaction(async (tx) => {
+    // Servers starting together: one seeds, the others see it done.
+    await tx.execute(sql`select pg_advisory_xact_lock(${SEED_LOCK})`);
+    const [again] = await tx.select({ n: sql<number>`count(*)::int` }).from(teams);
+    if ((again?.n ?? 0) > 0) return false;
     await tx.insert(teams).values({ id: demoTeam.id, name: demoTeam.name, units: "metric" });
     for (const a of demoAccounts) {
       await tx.insert(users).values({
@@ -39,6 +45,6 @@ export async function seedDemoOnce(db: Db): Promise<boolean> {
     await tx.insert(items).values(walked.map((i) => ({ id: i.id, teamId: demoTeam.id, siteId: DEMO_SITE_ID, kind: i.kind, data: i.data, version: 1, updatedBy: "user_priya" })));
     await tx.update(sites).set({ closetRoomId: demoSiteInput.closetRoomId, settings: demoSiteInput.settings ?? {}, version: 1 }).where(eq(sites.id, DEMO_SITE_ID));
     await tx.update(teams).set({ version: 1 }).where(eq(teams.id, demoTeam.id));
+    return true;
   });
-  return true;
 }

@@ -11,9 +11,10 @@ export interface TestDb {
   drop(): Promise<void>;
 }
 
-export async function createTestDb(): Promise<TestDb> {
+/** A database of its own, cloned from the migrated template — or empty (`migrated: false`). */
+export async function createTestDb({ migrated = true }: { migrated?: boolean } = {}): Promise<TestDb> {
   const adminUrl = inject("pgAdminUrl");
-  const template = inject("pgTemplate");
+  const template = migrated ? inject("pgTemplate") : "template1";
   const name = `t_${randomBytes(6).toString("hex")}`;
   const admin = new pg.Client({ connectionString: adminUrl });
   await admin.connect();

@@ -1,6 +1,6 @@
 // Photos live in an S3-compatible object store, through the official SDK. In production any such
 // service (S3_ENDPOINT…); here a local fake that the start command and the tests start themselves.
-import { CreateBucketCommand, GetObjectCommand, HeadBucketCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
+import { CreateBucketCommand, GetObjectCommand, HeadBucketCommand, ListObjectsV2Command, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
 import type { Readable } from "node:stream";
 
 export interface ObjectStoreSettings {
@@ -15,6 +15,8 @@ export interface ObjectStore {
   put(key: string, body: Buffer, contentType: string): Promise<void>;
   get(key: string): Promise<{ body: Readable; contentType: string; size: number } | undefined>;
   ensureBucket(): Promise<void>;
+  /** Every key in the bucket (for backups). */
+  list(): AsyncIterable<string>;
 }
 
 export function createObjectStore(settings: ObjectStoreSettings): ObjectStore {
@@ -39,6 +41,14 @@ export function createObjectStore(settings: ObjectStoreSettings): ObjectStore {
     },
     async put(Key, Body, ContentType) {
       await client.send(new PutObjectCommand({ Bucket, Key, Body, ContentType, ContentLength: Body.byteLength }));
+    },
+    async *list() {
+      let ContinuationToken: string | undefined;
+      do {
+        const page = await client.send(new ListObjectsV2Command({ Bucket, ContinuationToken }));
+        for (const o of page.Contents ?? []) if (o.Key) yield o.Key;
+        ContinuationToken = page.IsTruncated ? page.NextContinuationToken : undefined;
+      } while (ContinuationToken);
     },
     async get(Key) {
       try {

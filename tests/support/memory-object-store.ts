@@ -10,6 +10,9 @@ export function memoryObjectStore(): ObjectStore & { objects: Map<string, { body
     async put(key, body, contentType) {
       objects.set(key, { body, contentType });
     },
+    async *list() {
+      yield* objects.keys();
+    },
     async get(key) {
       const o = objects.get(key);
       return o ? { body: Readable.from(o.body), contentType: o.contentType, size: o.body.byteLength } : undefined;

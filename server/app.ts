@@ -73,7 +73,9 @@ export function createApp(ctx: AppContext) {
   const publicApi = express.Router();
   publicApi.use(healthRouter(ctx));
   publicApi.use(sessionRouter(ctx));
-  publicApi.use(limiter(config.authRateLimit * 3, "Too many attempts with invitation links. Wait 15 minutes and try again."), invitesRouter(ctx));
+  // Only the invitation routes are limited here (guessing tokens); the rest of the API is not.
+  publicApi.use("/invites", limiter(config.authRateLimit * 3, "Too many attempts with invitation links. Wait 15 minutes and try again."));
+  publicApi.use(invitesRouter(ctx));
 
   // Everything else needs a signed-in member; each route then asks survey/policy.ts.
   const memberApi = express.Router();

@@ -178,3 +178,19 @@ async function expectOk(pending: ReturnType<typeof requestSignInLink>) {
   expect(res.status).toBe(200);
   return res;
 }
+
+describe("rate limits stay where they belong", () => {
+  it("many ordinary API requests are never throttled by the sign-in or invitation limits", async () => {
+    const limited = await startTestServer({ config: { authRateLimit: 2 } });
+    try {
+      const agent = await signInWithPassword(limited.url, ADMIN, DEMO_PASSWORD);
+      for (let i = 0; i < 20; i++) await agent.get("/api/sites").expect(200);
+      for (let i = 0; i < 7; i++) await request(limited.url).get("/api/invites/not-a-token");
+      const res = await request(limited.url).get("/api/invites/not-a-token").expect(429);
+      expect(res.body.error.code).toBe("too_many_attempts");
+      await agent.get("/api/sites").expect(200);
+    } finally {
+      await limited.stop();
+    }
+  });
+});

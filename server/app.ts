@@ -9,6 +9,7 @@ import { pinHost } from "./auth/host-pin";
 import type { AppContext } from "./context";
 import { HttpError, apiNotFound, errorHandler } from "./errors";
 import { securityHeaders } from "./middleware/security-headers";
+import { rejectNulCharacters } from "./middleware/reject-nul";
 import { sameOriginWrites } from "./middleware/same-origin-writes";
 import { healthRouter } from "./routes/health";
 import { invitesRouter } from "./routes/invites";
@@ -94,6 +95,7 @@ export function createApp(ctx: AppContext) {
 
   const api = express.Router();
   api.use(express.json({ limit: "4mb" }));
+  api.use(rejectNulCharacters);
   api.use(sameOriginWrites(config.publicOrigin));
   api.use(loadActor(ctx, authConfig));
   api.use(publicApi);

@@ -65,5 +65,6 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
 export function param(req: { params: Record<string, string | string[] | undefined> }, name: string): string {
   const value = req.params[name];
   if (typeof value !== "string" || value === "") throw new HttpError(400, "invalid_input", `The ${name} in the address is missing.`);
+  if (value.length > 200 || value.includes("\u0000")) throw new HttpError(400, "invalid_input", `The ${name} in the address is not valid.`);
   return value;
 }

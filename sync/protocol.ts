@@ -23,7 +23,7 @@ export const ItemPutArgs = v.object({
   /** Only the fields this change sets; `null` clears a field. */
   fields: Fields,
   /** The item's version the phone had when the change was made (0 for a new item). */
-  baseVersion: v.pipe(v.number(), v.integer(), v.minValue(0)),
+  baseVersion: v.pipe(v.number("The base version is a number."), v.integer("The base version is a whole number."), v.minValue(0, "The base version cannot be negative."), v.maxValue(Number.MAX_SAFE_INTEGER, "The base version is too large.")),
 });
 export const ItemDeleteArgs = v.object({ itemId: Id, siteId: Id });
 export const SiteUpdateArgs = v.object({
@@ -55,7 +55,7 @@ export interface PushResponse {
 
 export const PullRequestSchema = v.object({
   clientId: ClientId,
-  cursor: v.pipe(v.number(), v.integer(), v.minValue(0, "The cursor cannot be negative.")),
+  cursor: v.pipe(v.number("The cursor is a number."), v.integer("The cursor is a whole number."), v.minValue(0, "The cursor cannot be negative."), v.maxValue(Number.MAX_SAFE_INTEGER, "The cursor is too large.")),
   /** Sites the phone already holds; any other visible site comes back whole. */
   knownSiteIds: v.pipe(v.array(Id), v.maxLength(1000)),
 });

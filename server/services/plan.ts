@@ -334,3 +334,32 @@ export function buildPlanView(data: PlanData) {
 }
 
 export type PlanView = ReturnType<typeof buildPlanView>;
+
+/**
+ * The plan in the shape the published report takes (survey/report.ts): the evaluation with the
+ * designer's decisions applied, each decision's label, reason and author, and the priced materials.
+ * Unit prices carry no currency in the plan; the report adds its own.
+ */
+export async function planForReport(db: Reader, site: SiteWithAccess) {
+  const data = await loadPlanData(db, site);
+  const planned = plannableSite(site, data.items);
+  const { applied, evaluation } = evaluatePlan(planned.site, decisionMap(data.decisions));
+  const decisions: Record<string, { label: string; reason: string; by: string }> = {};
+  for (const row of data.decisions) {
+    const e = applied.devices.find((d) => d.deviceId === row.deviceId);
+    if (!e || applied.stale.has(row.deviceId)) continue;
+    const by = data.history.find((h) => h.deviceId === row.deviceId && h.action === "decided")?.actorName ?? "";
+    decisions[row.deviceId] = { label: e.label, reason: row.reason, by };
+  }
+  const priced = priceMaterials(buildMaterials(planned.site, evaluation), data.prices);
+  return {
+    site: { ...planned.site, address: site.address },
+    evaluation,
+    decisions,
+    materials: {
+      lines: priced.lines.filter((l) => l.unitPrice !== null).map((l) => ({ key: l.key, description: l.item, quantity: l.quantity, unit: l.unit, unitPrice: l.unitPrice!, total: l.lineTotal! })),
+      allLines: priced.lines,
+      total: priced.total,
+    },
+  };
+}

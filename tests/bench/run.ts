@@ -1,11 +1,12 @@
 // `npm run bench`: every benchmark, printed as figures and ratios measured in this same run.
 // It reports; it never fails because the machine is slow.
 import { runRulesBench } from "./rules-bench";
+import { runApiBench } from "./api-bench";
 import { runSyncBench } from "./sync-bench";
 
 type Bench = () => Promise<{ name: string; figures: Record<string, number | string> }>;
 
-const BENCHES: Bench[] = [runRulesBench, runSyncBench];
+const BENCHES: Bench[] = [runRulesBench, runSyncBench, runApiBench];
 
 async function main() {
   for (const bench of BENCHES) {

@@ -50,7 +50,11 @@ export function AppProviders({ children }: { children: ReactNode }) {
           maxAge: 7 * 24 * 3600_000,
           buster: "1",
           // The local store's queries read SQLite on the phone already; only server reads are kept.
-          dehydrateOptions: { shouldDehydrateQuery: (q) => q.state.status === "success" && q.queryKey[0] !== "local" },
+          // A remembered "signed out" would bounce a fresh sign-in link back to the sign-in screen.
+          dehydrateOptions: {
+            shouldDehydrateQuery: (q) =>
+              q.state.status === "success" && q.queryKey[0] !== "local" && !(q.queryKey[0] === "me" && (q.state.data as { status?: string } | undefined)?.status === "signed-out"),
+          },
         }}
       >
         {children}

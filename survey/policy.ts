@@ -24,6 +24,7 @@ export interface SiteAccess {
 
 export type SiteAction =
   | "site:read" // open it and everything captured in it
+  | "site:plan" // read the working plan (decisions, prices, history): the team; the client reads the published scope
   | "site:capture" // add or change floors, rooms, devices, photos
   | "site:manage" // rename, assign surveyors, invite the client, plan and publish
   | "site:sign"; // sign off the published scope, ask for changes
@@ -34,7 +35,8 @@ export type TeamAction =
   | "team:read-members"
   | "team:manage" // invite, change roles, remove members
   | "mail:read-outbox"
-  | "rules:evaluate";
+  | "rules:evaluate"
+  | "desk:read"; // the desk's table of every site of the team
 
 export type Decision = "allow" | "forbidden" | "hidden";
 
@@ -45,6 +47,7 @@ const TEAM_ACTIONS: Record<TeamAction, readonly Role[]> = {
   "team:manage": ["admin"],
   "mail:read-outbox": ["admin"],
   "rules:evaluate": ROLES,
+  "desk:read": ["admin", "designer"],
 };
 
 export function decideTeam(actor: Actor, action: TeamAction): Decision {
@@ -70,6 +73,8 @@ export function decideSite(actor: Actor, action: SiteAction, site: SiteAccess): 
   switch (action) {
     case "site:read":
       return "allow";
+    case "site:plan":
+      return role === "client" ? "forbidden" : "allow";
     case "site:capture":
       return role === "client" ? "forbidden" : "allow";
     case "site:manage":

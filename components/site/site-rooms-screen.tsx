@@ -1,25 +1,15 @@
-import { EmptyState } from "@/components/ui/empty-state";
-import { Icon } from "@/components/ui/icons";
-import { colors } from "@/constants/theme";
+import { WalkPanel } from "@/components/walk/walk-panel";
 import { useMe } from "@/hooks/queries/me";
 import { SitePeoplePanel } from "./site-people-panel";
 import { SiteSectionScreen } from "./site-section-screen";
 
+/** The "Rooms" tab (the team's): the walk, read from the phone's own store so it works in a basement. */
 export function SiteRoomsScreen() {
   const me = useMe();
   const manages = me.role === "admin" || me.role === "designer";
   return (
     <SiteSectionScreen>
-      {(site) => (
-        <>
-          <EmptyState
-            icon={<Icon name="rooms" size={40} color={colors.slate600} />}
-            title="No rooms captured yet"
-            body="Floors, rooms and every device the surveyor captures on the walk appear here, each with its mount point, power need and cable run, and the gaps still open."
-          />
-          {manages ? <SitePeoplePanel site={site} /> : null}
-        </>
-      )}
+      {(site) => <WalkPanel siteId={site.id} after={manages && site.summary ? <SitePeoplePanel site={site.summary} /> : null} />}
     </SiteSectionScreen>
   );
 }

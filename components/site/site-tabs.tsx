@@ -3,6 +3,7 @@ import { Pressable, StyleSheet, View } from "react-native";
 import { Icon, type IconName } from "@/components/ui/icons";
 import { AppText } from "@/components/ui/text";
 import { colors, fonts, minTouch, radius, space } from "@/constants/theme";
+import { useMe } from "@/hooks/queries/me";
 
 const SECTIONS: { suffix: string; label: string; icon: IconName }[] = [
   { suffix: "", label: "Rooms", icon: "rooms" },
@@ -13,9 +14,12 @@ const SECTIONS: { suffix: string; label: string; icon: IconName }[] = [
 /** The three views of one site: what was captured, what is planned, what the client signs. */
 export function SiteTabs({ siteId }: { siteId: string }) {
   const pathname = usePathname();
+  const me = useMe();
+  // A homeowner reads the published scope; the walk and the plan are the team's.
+  const sections = me.role === "client" ? SECTIONS.filter((s) => s.suffix === "/report") : SECTIONS;
   return (
     <View style={styles.row} role="tablist" aria-label="Site sections">
-      {SECTIONS.map((s) => {
+      {sections.map((s) => {
         const href = `/sites/${siteId}${s.suffix}`;
         const active = pathname === href;
         return (

@@ -10,6 +10,8 @@ import { AppText } from "@/components/ui/text";
 import { colors, radius, space } from "@/constants/theme";
 import { useMe } from "@/hooks/queries/me";
 import { useSites } from "@/hooks/queries/sites";
+import { DeskSitesTable } from "@/components/desk/desk-sites-table";
+import { LocalSitesList } from "./local-sites-list";
 import { NewSiteForm } from "./new-site-form";
 import { SiteStatusBadge } from "./site-status-badge";
 
@@ -22,9 +24,24 @@ const SUBTITLES = {
 
 export function SitesScreen() {
   const me = useMe();
+  // A surveyor's walks come from the phone's own store, so the list opens without a connection.
+  if (me.role === "surveyor") {
+    return (
+      <Screen title="Walks" subtitle={SUBTITLES.surveyor}>
+        <LocalSitesList />
+      </Screen>
+    );
+  }
+  return <ServerSites />;
+}
+
+/** Designers, admins and homeowners: the server's list. */
+function ServerSites() {
+  const me = useMe();
   const sites = useSites();
   const [creating, setCreating] = useState(false);
-  const title = me.role === "designer" ? "Desk" : me.role === "client" ? "Your scope" : me.role === "surveyor" ? "Walks" : "Sites";
+  const title = me.role === "designer" ? "Desk" : me.role === "client" ? "Your scope" : "Sites";
+  if (me.role === "designer" || me.role === "admin") return <Screen title={title} subtitle={SUBTITLES[me.role]} actions={me.permissions["site:create"] && !creating ? <Button label="New site" onPress={() => setCreating(true)} /> : undefined}>{creating ? <NewSiteForm onDone={() => setCreating(false)} /> : null}<DeskSitesTable /></Screen>;
 
   return (
     <Screen
@@ -39,16 +56,10 @@ export function SitesScreen() {
         <EmptyState
           icon={<Icon name="sites" size={40} color={colors.slate600} />}
           title="No sites yet"
-          body={
-            me.role === "surveyor"
-              ? "When a designer assigns you a house, it appears here with its walk progress and gaps."
-              : me.role === "client"
-                ? "When your installer invites you to a site, its scope appears here."
-                : "Create a site for each house and assign a surveyor to walk it."
-          }
+          body={me.role === "client" ? "When your installer invites you to a site, its scope appears here." : "Create a site for each house and assign a surveyor to walk it."}
         />
       ) : null}
-      <View style={styles.list} role="list">
+      <View style={styles.list}>
         {sites.data?.map((site) => (
           <Link key={site.id} href={`/sites/${site.id}`} asChild>
             <Pressable role="link" aria-label={`${site.name}, ${site.address}`} style={styles.row}>

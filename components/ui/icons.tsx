@@ -2,7 +2,7 @@
 import Svg, { Circle, Path, Rect } from "react-native-svg";
 import { colors } from "@/constants/theme";
 
-export type IconName = "sites" | "sync" | "account" | "team" | "desk" | "rooms" | "plan" | "report" | "mail";
+export type IconName = "sites" | "sync" | "account" | "team" | "desk" | "rooms" | "plan" | "report" | "mail" | "back" | "plus" | "photo" | "check" | "gap" | "device";
 
 interface IconProps {
   name: IconName;
@@ -70,6 +70,29 @@ export function Icon({ name, size = 24, color = colors.ink }: IconProps) {
         <>
           <Rect x={3} y={5} width={18} height={14} rx={2} {...stroke} />
           <Path d="m4 7 8 6 8-6" {...stroke} />
+        </>
+      )}
+      {name === "back" && <Path d="M15 5 8 12l7 7" {...stroke} />}
+      {name === "plus" && <Path d="M12 5v14M5 12h14" {...stroke} />}
+      {name === "photo" && (
+        <>
+          <Rect x={3} y={6} width={18} height={14} rx={2} {...stroke} />
+          <Path d="M8.5 6 10 3.5h4L15.5 6" {...stroke} />
+          <Circle cx={12} cy={13} r={3.5} {...stroke} />
+        </>
+      )}
+      {name === "check" && <Path d="m5 12.5 4.5 4.5L19 7.5" {...stroke} />}
+      {name === "gap" && (
+        <>
+          <Circle cx={12} cy={12} r={8.5} {...stroke} />
+          <Path d="M12 7.5v5.5M12 16.5v.01" {...stroke} />
+        </>
+      )}
+      {name === "device" && (
+        <>
+          <Rect x={5} y={3.5} width={14} height={11} rx={2} {...stroke} />
+          <Path d="M12 14.5V21M9 21h6" {...stroke} />
+          <Circle cx={12} cy={9} r={2} {...stroke} />
         </>
       )}
     </Svg>

@@ -1,15 +1,27 @@
 import type { ReactNode } from "react";
-import { ScrollView, StyleSheet, View } from "react-native";
-import { CONTENT_MAX_WIDTH, colors, space } from "@/constants/theme";
+import { Link } from "expo-router";
+import { Pressable, ScrollView, StyleSheet, View } from "react-native";
+import { CONTENT_MAX_WIDTH, colors, fonts, minTouch, space } from "@/constants/theme";
 import { useBreakpoint } from "@/hooks/use-breakpoint";
+import { Icon } from "./icons";
 import { AppText } from "./text";
 
 /** A scrolling page with a title; content is capped in width on wide screens. */
-export function Screen({ title, subtitle, actions, children }: { title: string; subtitle?: string; actions?: ReactNode; children: ReactNode }) {
+export function Screen({ title, subtitle, actions, back, children }: { title: string; subtitle?: string; actions?: ReactNode; back?: { href: string; label: string }; children: ReactNode }) {
   const { wide } = useBreakpoint();
   return (
     <ScrollView style={styles.scroll} contentContainerStyle={[styles.content, wide && styles.contentWide]}>
       <View style={styles.inner}>
+        {back ? (
+          <Link href={back.href as never} asChild>
+            <Pressable role="link" aria-label={`Back to ${back.label}`} style={styles.back}>
+              <Icon name="back" size={20} color={colors.slate700} />
+              <AppText style={styles.backLabel} numberOfLines={1}>
+                {back.label}
+              </AppText>
+            </Pressable>
+          </Link>
+        ) : null}
         <View style={[styles.header, wide && styles.headerWide]}>
           <View style={styles.titles}>
             <AppText variant="title">{title}</AppText>
@@ -32,4 +44,6 @@ const styles = StyleSheet.create({
   headerWide: { flexDirection: "row", alignItems: "flex-end", justifyContent: "space-between" },
   titles: { gap: space.xs, flexShrink: 1 },
   actions: { flexDirection: "row", gap: space.sm, flexWrap: "wrap" },
+  back: { flexDirection: "row", alignItems: "center", alignSelf: "flex-start", gap: space.xs, minHeight: minTouch - 8, marginBottom: -space.sm, paddingRight: space.md },
+  backLabel: { fontFamily: fonts.semibold, color: colors.slate700 },
 });

@@ -3,11 +3,11 @@
 import { createHash, randomUUID } from "node:crypto";
 import { and, desc, eq, inArray, max } from "drizzle-orm";
 import type { Db } from "../../db/client";
-import { depositSettings, deposits, items, memberships, reportComments, reportVersions, reportViews, signoffs, sites, teams, users } from "../../db/schema";
-import { assembleSite, type SiteItem } from "../../survey/capture";
+import { depositSettings, deposits, memberships, reportComments, reportVersions, reportViews, signoffs, sites, teams, users } from "../../db/schema";
 import type { Actor } from "../../survey/policy";
 import { buildReportContent, canonicalJson, diffReports, type ReportContent, type ReportInput } from "../../survey/report";
-import { evaluateSite, parseSite } from "../../survey";
+import { parseSite } from "../../survey";
+import { planForReport } from "./plan";
 import { createSignInLink } from "../auth/sign-in-link";
 import type { AppContext } from "../context";
 import { HttpError, notFound } from "../errors";
@@ -16,16 +16,31 @@ import type { SiteWithAccess } from "./site-access";
 
 export const hashContent = (content: ReportContent) => createHash("sha256").update(canonicalJson(content)).digest("hex");
 
-/** The plan as it stands now: the site's items through the same rules the phone runs. */
+/** The plan as it stands now: the site's items and the designer's decisions through the rules, priced. */
 export async function currentPlan(db: Db, site: SiteWithAccess): Promise<Omit<ReportInput, "team" | "version" | "publishedAt">> {
-  const rows = await db.select().from(items).where(and(eq(items.siteId, site.id), eq(items.deleted, false)));
-  const siteItems: SiteItem[] = rows.map((r) => ({ id: r.id, siteId: r.siteId, kind: r.kind, data: r.data, deleted: r.deleted, version: r.version }));
-  const { site: input } = assembleSite({ id: site.id, name: site.name, address: site.address, closetRoomId: site.closetRoomId, settings: site.settings as Record<string, unknown> }, siteItems);
-  const parsed = parseSite(input);
+  const plan = await planForReport(db, site);
+  const parsed = parseSite(plan.site);
   if (!parsed.ok) {
     throw new HttpError(409, "plan_incomplete", `The plan cannot be published yet: ${parsed.errors[0].path ? `${parsed.errors[0].path}: ` : ""}${parsed.errors[0].message}`);
   }
-  return { site: { ...input, address: site.address }, evaluation: evaluateSite(parsed.value), decisions: {}, materials: { lines: [], total: 0, currency: "USD" } };
+  return {
+    site: plan.site,
+    evaluation: plan.evaluation,
+    decisions: plan.decisions,
+    materials: {
+      // Every line the plan needs; a line without a price yet shows as such rather than vanishing.
+      lines: plan.materials.allLines.map((l) => ({
+        key: l.key,
+        description: l.unitPrice === null ? `${l.item} (price to be confirmed)` : l.item,
+        quantity: l.quantity,
+        unit: l.unit,
+        unitPrice: l.unitPrice ?? 0,
+        total: l.lineTotal ?? 0,
+      })),
+      total: plan.materials.total,
+      currency: "USD",
+    },
+  };
 }
 
 export async function publishReport(ctx: AppContext, actor: Actor, site: SiteWithAccess) {

@@ -36,7 +36,13 @@ export function createObjectStore(settings: ObjectStoreSettings): ObjectStore {
       try {
         await client.send(new HeadBucketCommand({ Bucket }));
       } catch {
-        await client.send(new CreateBucketCommand({ Bucket }));
+        try {
+          await client.send(new CreateBucketCommand({ Bucket }));
+        } catch (err) {
+          // Another server created it a moment ago: that is what we wanted.
+          const name = (err as { name?: string }).name;
+          if (name !== "BucketAlreadyOwnedByYou" && name !== "BucketAlreadyExists") throw err;
+        }
       }
     },
     async put(Key, Body, ContentType) {

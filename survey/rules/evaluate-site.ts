@@ -101,9 +101,11 @@ export function orderLengthM(runM: number): number {
  * Evaluate a whole (validated) site: every device, the port assignment, every
  * switch and injector, every battery, the cable schedule and a summary.
  * Linear in the number of devices. Validate input first with `parseSite`.
+ * `devices` may carry device results already worked out (one per site device, in site order),
+ * e.g. with designer decisions applied; the port assignment, budgets and battery then follow them.
  */
-export function evaluateSite(site: Site): SiteEvaluation {
-  const ctx = buildPlanContext(site);
+export function evaluateSite(site: Site, devices?: readonly DeviceEvaluation[]): SiteEvaluation {
+  const ctx = buildPlanContext(site, devices);
   const switches: SwitchEvaluation[] = [];
   for (const s of ctx.poeSources) switches.push(evaluateSwitchWith(ctx, s));
   const batteryReport = evaluateBatteriesWith(ctx);

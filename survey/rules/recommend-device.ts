@@ -84,7 +84,7 @@ function warn(b: Builder, deviceId: string, code: string, severity: PlanWarning[
   b.warnings.push({ code, severity, message, deviceId });
 }
 
-interface PoeAttempt {
+export interface PoeAttempt {
   readonly works: boolean;
   readonly plan: PoePlan | null;
   readonly cable: CableRunResult | null;
@@ -92,8 +92,8 @@ interface PoeAttempt {
   readonly whyNot: string | null;
 }
 
-/** Try to power `pdLoadW` over the device's run with a port of `poeClass`. */
-function attemptPoe(device: Device, poeClass: PoeClass, pdLoadW: number, settings: SiteSettings): PoeAttempt {
+/** Try to power `pdLoadW` over the device's run with a port of `poeClass` (also used for designer decisions). */
+export function attemptPoe(device: Device, poeClass: PoeClass, pdLoadW: number, settings: SiteSettings): PoeAttempt {
   const cls = POE_CLASSES[poeClass];
   const poeType: PoeType = cls.minType;
   const spec = POE_TYPES[poeType];

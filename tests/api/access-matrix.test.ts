@@ -5,7 +5,7 @@ import request from "supertest";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DEMO_PASSWORD } from "../../db/demo-accounts";
 import { DEMO_SITE_ID, seedDemoOnce } from "../../db/seed";
-import { invites, memberships, photos, teams, users } from "../../db/schema";
+import { deviceDecisions, invites, items, memberships, photos, teams, users } from "../../db/schema";
 import { createApp } from "../../server/app";
 import { demoSiteInput } from "../../survey/demo-site";
 import { hashPassword } from "../../server/auth/passwords";
@@ -69,6 +69,16 @@ async function freshReport(): Promise<string> {
 }
 
 const siteRead = { anonymous: 401, admin: 200, designer: 200, surveyor: 200, otherSurveyor: 404, client: 200, otherTeam: 404 };
+
+/** A closet item of the demo site, written straight to the database (one per request that consumes it). */
+async function addClosetItem(kind: "source" | "battery") {
+  const id = randomUUID();
+  const data = kind === "source" ? { id, kind: "injector", name: "Matrix injector", poeType: 2 } : { id, name: "Matrix battery", capacity: { by: "wh", wh: 100 } };
+  await testDb.db.insert(items).values({ id, teamId: "team_lanternfield", siteId: DEMO_SITE_ID, kind, data, version: 1 });
+  return id;
+}
+
+const planRead = { anonymous: 401, admin: 200, designer: 200, surveyor: 200, otherSurveyor: 404, client: 403, otherTeam: 404 };
 
 const siteWrite = { anonymous: 401, admin: 200, designer: 200, surveyor: 403, otherSurveyor: 404, client: 403, otherTeam: 404 };
 
@@ -171,6 +181,43 @@ const ROWS: Row[] = [
     route: "GET /outbox",
     make: () => ({ path: "/api/outbox" }),
     expect: { anonymous: 401, admin: 200, designer: 403, surveyor: 403, otherSurveyor: 403, client: 403, otherTeam: 200 },
+  },
+  // The designer's desk: the team reads the working plan, designers and admins change it.
+  { route: "GET /sites/:siteId/plan", make: () => ({ path: `/api/sites/${DEMO_SITE_ID}/plan` }), expect: planRead },
+  { route: "GET /sites/:siteId/materials.csv", make: () => ({ path: `/api/sites/${DEMO_SITE_ID}/materials.csv` }), expect: planRead },
+  {
+    route: "PUT /sites/:siteId/devices/:deviceId/decision",
+    make: () => ({ path: `/api/sites/${DEMO_SITE_ID}/devices/bell-back/decision`, body: { method: "poe", poeClass: 2, reason: "Matrix check" } }),
+    expect: siteWrite,
+  },
+  {
+    route: "DELETE /sites/:siteId/devices/:deviceId/decision",
+    make: async () => {
+      await testDb.db.insert(deviceDecisions).values({ siteId: DEMO_SITE_ID, deviceId: "hub-hall", teamId: "team_lanternfield", method: "existing_outlet", reason: "Matrix check" }).onConflictDoNothing();
+      return { path: `/api/sites/${DEMO_SITE_ID}/devices/hub-hall/decision`, body: { reason: "Matrix check" } };
+    },
+    expect: siteWrite,
+  },
+  { route: "POST /sites/:siteId/assign-ports", make: () => ({ path: `/api/sites/${DEMO_SITE_ID}/assign-ports`, body: {} }), expect: siteWrite },
+  { route: "PUT /sites/:siteId/prices", make: () => ({ path: `/api/sites/${DEMO_SITE_ID}/prices`, body: { "wall-plate:1-port": 2.5 } }), expect: siteWrite },
+  {
+    route: "POST /sites/:siteId/closet/sources",
+    make: () => ({ path: `/api/sites/${DEMO_SITE_ID}/closet/sources`, body: { kind: "injector", name: "Spare injector", poeType: 2 } }),
+    expect: { ...siteWrite, admin: 201, designer: 201 },
+  },
+  { route: "PATCH /sites/:siteId/closet/sources/:sourceId", make: async () => ({ path: `/api/sites/${DEMO_SITE_ID}/closet/sources/${await addClosetItem("source")}`, body: { name: "Renamed injector" } }), expect: siteWrite },
+  { route: "DELETE /sites/:siteId/closet/sources/:sourceId", make: async () => ({ path: `/api/sites/${DEMO_SITE_ID}/closet/sources/${await addClosetItem("source")}` }), expect: siteWrite },
+  {
+    route: "POST /sites/:siteId/closet/batteries",
+    make: () => ({ path: `/api/sites/${DEMO_SITE_ID}/closet/batteries`, body: { name: "Spare battery", capacity: { by: "wh", wh: 200 } } }),
+    expect: { ...siteWrite, admin: 201, designer: 201 },
+  },
+  { route: "PATCH /sites/:siteId/closet/batteries/:batteryId", make: async () => ({ path: `/api/sites/${DEMO_SITE_ID}/closet/batteries/${await addClosetItem("battery")}`, body: { ageFactor: 0.8 } }), expect: siteWrite },
+  { route: "DELETE /sites/:siteId/closet/batteries/:batteryId", make: async () => ({ path: `/api/sites/${DEMO_SITE_ID}/closet/batteries/${await addClosetItem("battery")}` }), expect: siteWrite },
+  {
+    route: "GET /desk/sites",
+    make: () => ({ path: "/api/desk/sites" }),
+    expect: { anonymous: 401, admin: 200, designer: 200, surveyor: 403, otherSurveyor: 403, client: 403, otherTeam: 200 },
   },
 ];
 

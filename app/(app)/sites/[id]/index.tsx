@@ -1,1 +1,1 @@
-export { SiteRoomsScreen as default } from "@/components/site/site-rooms-screen";
+export { SiteHome as default } from "@/components/site/site-home";

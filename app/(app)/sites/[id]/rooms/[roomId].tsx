@@ -1,0 +1,1 @@
+export { RoomScreen as default } from "@/components/walk/room-screen";

@@ -1,0 +1,61 @@
+// A site's plan as the desk reads it: the server's evaluation with the designer's decisions.
+// It refreshes every 10 s and whenever this browser's own sync brings surveyors' changes in.
+import { useQuery, useQueryClient, type QueryClient } from "@tanstack/react-query";
+import { useEffect } from "react";
+import type { PlanView } from "@/server/services/plan";
+import { apiFetch } from "@/sync/http";
+
+export type Plan = PlanView;
+export type PlanDevice = Plan["devices"][number];
+export type PlanSwitch = Plan["switches"][number];
+export type PlanHistoryEntry = Plan["history"][string][number];
+
+export const planKeys = {
+  root: ["plan"] as const,
+  detail: (siteId: string) => [...planKeys.root, siteId] as const,
+};
+
+export const PLAN_REFRESH_MS = 10_000;
+
+export function fetchPlan(siteId: string) {
+  return apiFetch<{ plan: Plan }>(`/api/sites/${siteId}/plan`).then((r) => r.plan);
+}
+
+export function usePlan(siteId: string) {
+  const qc = useQueryClient();
+  useEffect(() => {
+    // The phone-sync keeps its data under the "local" key: when a pull lands, the plan may be stale.
+    return qc.getQueryCache().subscribe((event) => {
+      if (event.type === "updated" && event.action.type === "success" && event.query.queryKey[0] === "local") {
+        // Several local queries settle after one pull: one refetch of the plan is enough.
+        const state = qc.getQueryState(planKeys.detail(siteId));
+        if (state?.fetchStatus === "fetching" || (state && Date.now() - state.dataUpdatedAt < 2000)) return;
+        void qc.invalidateQueries({ queryKey: planKeys.detail(siteId) });
+      }
+    });
+  }, [qc, siteId]);
+  return useQuery({ queryKey: planKeys.detail(siteId), queryFn: () => fetchPlan(siteId), refetchInterval: PLAN_REFRESH_MS, refetchIntervalInBackground: false });
+}
+
+/**
+ * The one shape of a plan write: show the change at once, put the server's plan in when it answers,
+ * and go back to what was there when it fails.
+ */
+export function planWriteHandlers<V>(qc: QueryClient, siteId: string, optimistic: (plan: Plan, vars: V) => Plan) {
+  const key = planKeys.detail(siteId);
+  return {
+    onMutate: async (vars: V) => {
+      await qc.cancelQueries({ queryKey: key });
+      const previous = qc.getQueryData<Plan>(key);
+      if (previous) qc.setQueryData(key, optimistic(previous, vars));
+      return { previous };
+    },
+    onError: (_err: Error, _vars: V, context: { previous?: Plan } | undefined) => {
+      if (context?.previous) qc.setQueryData(key, context.previous);
+    },
+    onSuccess: (data: { plan: Plan }) => {
+      qc.setQueryData(key, data.plan);
+    },
+    onSettled: () => qc.invalidateQueries({ queryKey: key }),
+  };
+}

@@ -1,0 +1,148 @@
+// The designer's desk at 1280×800: the sites table, the demo site's plan, a decision, a port moved by
+// hand with the budget chart following, prices and the CSV export. Screenshots in tests/artifacts/.
+import fs from "node:fs";
+import { parse } from "csv-parse/sync";
+import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { DEMO_SITE_ID } from "../../db/seed";
+import { DESKTOP, PHONE, launchBrowser, screenshot, watchPage } from "../support/browser";
+import { signInThroughUi } from "../support/browser-auth";
+import { startTestServer, type TestServer } from "../support/test-server";
+
+let server: TestServer;
+let browser: Browser;
+
+beforeAll(async () => {
+  server = await startTestServer();
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+});
+
+/** Signs the designer in and opens the demo site's plan from the desk, as a person would (no reload mid-sync). */
+async function openPlanFromDesk(page: Page) {
+  await signInThroughUi(page, server, "tomas@lanternfield.test");
+  await page.getByRole("button", { name: "Open the plan of The Okonkwo-Lindqvist house" }).click();
+  await page.waitForURL(`${server.url}/sites/${DEMO_SITE_ID}/plan`);
+}
+
+const chartLabel = (page: Page, sourceId: string) => page.getByTestId(`budget-chart-${sourceId}`).first().getAttribute("aria-label");
+
+describe("the designer's desk", () => {
+  it("lists the team's sites in a sortable, filterable table that opens a site's plan", async () => {
+    const context = await browser.newContext({ viewport: DESKTOP, deviceScaleFactor: 1 });
+    const page = await context.newPage();
+    const watch = watchPage(page);
+    await signInThroughUi(page, server, "tomas@lanternfield.test");
+    await page.getByRole("heading", { name: "Desk" }).waitFor();
+    const table = page.getByRole("table", { name: "Sites" });
+    await table.waitFor();
+    await table.getByText("Priya Halloway").waitFor();
+    await table.getByText("16 of 16 complete").waitFor();
+    await page.getByRole("columnheader", { name: "Sort by Site" }).click();
+    expect(await page.getByRole("columnheader", { name: "Sort by Site" }).getAttribute("aria-sort")).toBe("ascending");
+    await page.getByRole("textbox", { name: "Filter sites" }).fill("no such house");
+    await page.getByText("No site matches the filter.").waitFor();
+    await page.getByRole("textbox", { name: "Filter sites" }).fill("larchmere");
+    await screenshot(page, "desk-sites-desktop");
+    await page.getByRole("button", { name: "Open the plan of The Okonkwo-Lindqvist house" }).click();
+    await page.waitForURL(`${server.url}/sites/${DEMO_SITE_ID}/plan`);
+    await page.getByRole("tab", { name: "Devices" }).waitFor();
+    expect(watch.problems).toEqual([]);
+    await context.close();
+  });
+
+  it("overrides a device, moves a port by hand, and the budget chart follows; exports the materials", async () => {
+    const context = await browser.newContext({ viewport: DESKTOP, deviceScaleFactor: 1, acceptDownloads: true });
+    const page = await context.newPage();
+    const watch = watchPage(page);
+    await openPlanFromDesk(page);
+    const cam = page.getByTestId("device-cam-garage");
+    await cam.waitFor();
+    await cam.getByText("existing outlet", { exact: true }).waitFor();
+    await screenshot(page, "desk-plan-desktop");
+
+    // Override: a reason is required and marked on the field.
+    await page.getByRole("button", { name: "Override Garage inside camera" }).click();
+    const form = page.getByLabel("Decision for Garage inside camera");
+    await form.getByRole("radio", { name: "PoE + splitter" }).click();
+    await form.getByRole("button", { name: "Save decision" }).click();
+    await form.getByText(/Give a reason for the decision/).waitFor();
+    expect(await form.getByRole("textbox", { name: "Reason (required)" }).getAttribute("aria-invalid")).toBe("true");
+    await screenshot(page, "desk-decision-error-desktop");
+    await form.getByRole("textbox", { name: "Reason (required)" }).fill("The garage outlet is on the light switch; keep the camera on the cable.");
+    await form.getByRole("button", { name: "Save decision" }).click();
+    await cam.getByText("designer decision", { exact: true }).waitFor();
+    await cam.getByText("PoE + splitter (12 V · 1 A · 5.5×2.1 mm, centre-positive)").waitFor();
+    await cam.getByRole("button", { name: "History of Garage inside camera" }).click();
+    await cam.getByText(/Decided: PoE \+ splitter · Tomas Ferreira-Lund/).waitFor();
+    await screenshot(page, "desk-decision-desktop");
+
+    // The closet: a second switch, then a device moved onto it by hand.
+    await page.getByRole("tab", { name: "Closet" }).click();
+    await page.getByRole("button", { name: "Add switch" }).click();
+    const add = page.getByLabel("New PoE switch");
+    await add.getByRole("textbox", { name: "Name" }).fill("Garage switch");
+    await add.getByRole("radio", { name: "Type 2 (802.3at)" }).click();
+    await add.getByRole("textbox", { name: "PoE budget" }).fill("-5");
+    await add.getByRole("textbox", { name: "PoE ports" }).fill("4");
+    await add.getByRole("button", { name: "Add to the closet" }).click();
+    await add.getByText(/PoE budget cannot be negative/).first().waitFor();
+    expect(await add.getByRole("textbox", { name: "PoE budget" }).getAttribute("aria-invalid")).toBe("true");
+    await add.getByRole("textbox", { name: "PoE budget" }).fill("60");
+    await add.getByRole("button", { name: "Add to the closet" }).click();
+    await page.getByRole("table", { name: "Ports of Garage switch" }).waitFor();
+
+    const before = await chartLabel(page, "sw-closet");
+    await page.getByRole("button", { name: "Move Bedroom 2 desk switch" }).click();
+    const move = page.getByLabel("Decision for Bedroom 2 desk switch");
+    await move.getByRole("radio", { name: "Garage switch" }).click();
+    await move.getByRole("radio", { name: "Port 2, free" }).click();
+    await move.getByRole("textbox", { name: "Reason (required)" }).fill("Upstairs runs go to the garage switch.");
+    await move.getByRole("button", { name: "Save decision" }).click();
+    await page.getByRole("table", { name: "Ports of Garage switch" }).getByRole("row", { name: "Port 2: Bedroom 2 desk switch" }).waitFor();
+    await expect.poll(() => chartLabel(page, "sw-closet")).not.toBe(before);
+    const after = (await chartLabel(page, "sw-closet"))!;
+    const expected = (label: string) => Number(/([\d.]+) W expected/.exec(label)![1]);
+    expect(expected(after)).toBeLessThan(expected(before!));
+    expect(await chartLabel(page, "sw-closet")).toMatch(/W set aside by class/);
+    await page.getByRole("table", { name: "Ports of Garage switch" }).scrollIntoViewIfNeeded();
+    await screenshot(page, "desk-closet-desktop");
+    await page.getByTestId("outage-chart").scrollIntoViewIfNeeded();
+    await screenshot(page, "desk-on-battery-desktop");
+
+    // Materials: a unit price, the total, the CSV.
+    await page.getByRole("tab", { name: "Materials" }).click();
+    const price = page.getByRole("textbox", { name: "Unit price of Wall plate, 1 port" });
+    await price.fill("3.25");
+    await price.press("Enter");
+    await expect.poll(async () => page.getByTestId("materials-total").textContent()).not.toBe("0.00");
+    await screenshot(page, "desk-materials-desktop");
+    const [download] = await Promise.all([page.waitForEvent("download"), page.getByRole("button", { name: "Export CSV" }).click()]);
+    expect(download.suggestedFilename()).toBe("the-okonkwo-lindqvist-house-materials.csv");
+    const rows: string[][] = parse(fs.readFileSync((await download.path())!), { bom: true });
+    expect(rows[0][0]).toBe("Group");
+    const plate = rows.find((r) => r[8] === "wall-plate:1-port")!;
+    expect(plate[5]).toBe("3.25");
+    expect(rows.find((r) => r[8] === "poe-switch:type2:4-port:60w")![2]).toBe("Garage switch");
+    expect(rows.some((r) => r[0] === "PoE splitters" && r[2].includes("Garage inside camera"))).toBe(true);
+    // The one refused request is the negative budget typed on purpose above.
+    expect(watch.problems).toEqual(["console: Failed to load resource: the server responded with a status of 400 (Bad Request)"]);
+    await context.close();
+  });
+
+  it("on a phone the plan is read-only", async () => {
+    const context = await browser.newContext({ viewport: PHONE, deviceScaleFactor: 1 });
+    const page = await context.newPage();
+    const watch = watchPage(page);
+    await openPlanFromDesk(page);
+    await page.getByTestId("device-ap-living").waitFor();
+    await page.getByText(/On a phone the plan is read-only/).waitFor();
+    expect(await page.getByRole("button", { name: /^Override / }).count()).toBe(0);
+    await screenshot(page, "desk-plan-phone");
+    expect(watch.problems).toEqual([]);
+    await context.close();
+  });
+});

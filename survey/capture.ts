@@ -6,7 +6,7 @@ import { BatteryBackupSchema } from "./model/battery";
 import { DeviceSchema, deviceEntries } from "./model/device";
 import { InjectorSchema, OutletSourceSchema, PoeSwitchSchema, PowerSourceSchema } from "./model/power-source";
 import { FloorSchema, RoomSchema, type SiteInput } from "./model/site";
-import { fieldErrors, type FieldErrors } from "./validation";
+import { addFieldError, fieldErrors, type FieldErrors } from "./validation";
 
 export const ITEM_KINDS = ["floor", "room", "device", "source", "battery"] as const;
 export type ItemKind = (typeof ITEM_KINDS)[number];
@@ -44,15 +44,16 @@ export function checkItemDraft(kind: ItemKind, data: Record<string, unknown>): {
   if (typeof entries === "string") return { ok: false, errors: { kind: [entries] } };
   const errors: FieldErrors = {};
   for (const [field, value] of Object.entries(data)) {
-    const schema = entries[field];
+    // Own keys only: "constructor" or "__proto__" must not find Object's members.
+    const schema = Object.hasOwn(entries, field) ? entries[field] : undefined;
     if (!schema) {
-      errors[field] = [`"${field}" is not a field of a ${kind}.`];
+      addFieldError(errors, field, `"${field}" is not a field of a ${kind}.`);
       continue;
     }
     if (value === null) continue; // a cleared field
     const result = v.safeParse(schema, value);
     if (!result.success) {
-      for (const [path, messages] of Object.entries(fieldErrors(result.issues))) errors[path === "_" ? field : `${field}.${path}`] = messages;
+      for (const [path, messages] of Object.entries(fieldErrors(result.issues))) addFieldError(errors, path === "_" ? field : `${field}.${path}`, ...messages);
     }
   }
   return Object.keys(errors).length ? { ok: false, errors } : { ok: true };
@@ -63,7 +64,8 @@ export function mergeFields(data: Record<string, unknown>, patch: Record<string,
   const out: Record<string, unknown> = { ...data };
   for (const [k, val] of Object.entries(patch)) {
     if (val === null) delete out[k];
-    else out[k] = val;
+    // defineProperty: a key named "__proto__" stays a plain (and then refused) field, never a prototype.
+    else Object.defineProperty(out, k, { value: val, enumerable: true, writable: true, configurable: true });
   }
   return out;
 }

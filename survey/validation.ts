@@ -2,6 +2,13 @@ import * as v from "valibot";
 
 export type FieldErrors = Record<string, string[]>;
 
+/** Adds messages under `key` as an own property (a key such as "__proto__" must not reach the prototype). */
+export function addFieldError(errors: FieldErrors, key: string, ...messages: string[]) {
+  const list = Object.hasOwn(errors, key) ? errors[key] : [];
+  for (const m of messages) if (!list.includes(m)) list.push(m);
+  Object.defineProperty(errors, key, { value: list, enumerable: true, writable: true, configurable: true });
+}
+
 /**
  * Per-field messages from valibot issues, keyed by dotted path ("_" for the whole value). A missing
  * key comes out of valibot as "Invalid key: …"; it reads "This field is required." instead.
@@ -11,7 +18,7 @@ export function fieldErrors(issues: readonly v.BaseIssue<unknown>[]): FieldError
   for (const issue of issues) {
     const key = v.getDotPath(issue) ?? "_";
     const message = issue.input === undefined && issue.message.startsWith("Invalid key") ? "This field is required." : issue.message;
-    (out[key] ??= []).includes(message) || out[key].push(message);
+    addFieldError(out, key, message);
   }
   return out;
 }

@@ -8,16 +8,17 @@ import { randomBytes } from "node:crypto";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
-import type { AddressInfo } from "node:net";
+import { spawn } from "node:child_process";
 import autocannon from "autocannon";
-import express from "express";
-import pino from "pino";
 import request from "supertest";
+import { createDb } from "../../db/client";
+import { findFreePort } from "../../db/cluster";
 import { DEMO_PASSWORD } from "../../db/demo-accounts";
+import { runMigrations } from "../../db/migrate";
 import { seedDemoOnce } from "../../db/seed";
-import { readConfig } from "../../server/config";
-import { startServer } from "../../server/index";
+import { projectRoot } from "../../server/config";
 import { csrfToken } from "../support/auth-client";
+import { spawnServer } from "../support/server-process";
 import { withBenchDatabase } from "./sync-bench";
 
 function load(url: string, headers: Record<string, string> = {}): Promise<autocannon.Result> {
@@ -26,55 +27,60 @@ function load(url: string, headers: Record<string, string> = {}): Promise<autoca
   });
 }
 
+/** Peak resident memory of a process, from the kernel's own high-water mark. */
+function peakRssMb(pid: number): number {
+  const status = fs.readFileSync(`/proc/${pid}/status`, "utf8");
+  const kb = Number(/VmHWM:\s+(\d+) kB/.exec(status)?.[1] ?? 0);
+  return Math.round(kb / 1024);
+}
+
+/** A hello-world Express route in its own process, started the same way as the server (node --import tsx). */
+async function spawnHelloWorld(port: number) {
+  const file = path.join(fs.mkdtempSync(path.join(os.tmpdir(), "dropwise-hello-")), "hello.ts");
+  fs.writeFileSync(file, `import express from ${JSON.stringify(path.join(projectRoot, "node_modules", "express", "index.js"))};\nconst app = express();\napp.disable("x-powered-by");\napp.get("/hello", (_req, res) => { res.json({ ok: true }); });\napp.listen(${port}, "127.0.0.1", () => console.log("listening on ${port}"));\n`);
+  const child = spawn(process.execPath, ["--import", "tsx", file], { cwd: projectRoot, stdio: ["ignore", "pipe", "inherit"] });
+  await new Promise<void>((resolve) => child.stdout!.on("data", (d) => String(d).includes("listening") && resolve()));
+  return child;
+}
+
 export async function runApiBench(): Promise<{ name: string; figures: Record<string, number | string> }> {
   return withBenchDatabase(async (databaseUrl) => {
-    const config = readConfig({}, {
-      port: 0,
-      databaseUrl,
-      authSecret: randomBytes(32).toString("base64url"),
-      authRateLimit: 100_000,
-      objectsDir: fs.mkdtempSync(path.join(os.tmpdir(), "dropwise-bench-objects-")),
-    });
-    const running = await startServer(config, { logger: pino({ level: "silent" }) });
-    await seedDemoOnce(running.ctx.db);
-    const agent = request.agent(running.url);
-    const token = await csrfToken(agent);
-    const signed = await agent.post("/auth/callback/credentials").set("X-Auth-Return-Redirect", "1").type("form").send({ email: "tomas@lanternfield.test", password: DEMO_PASSWORD, csrfToken: token });
-    const cookie = ([] as string[]).concat(signed.headers["set-cookie"]).find((c) => c.startsWith("authjs.session-token="))!.split(";")[0];
-
-    const hello = express();
-    hello.disable("x-powered-by");
-    hello.get("/hello", (_req, res) => {
-      res.json({ ok: true });
-    });
-    const helloServer = await new Promise<import("node:http").Server>((resolve) => {
-      const s = hello.listen(0, "127.0.0.1", () => resolve(s));
-    });
-
-    let peakRss = process.memoryUsage().rss;
-    const sampler = setInterval(() => (peakRss = Math.max(peakRss, process.memoryUsage().rss)), 50);
-    await load(`${running.url}/api/sites`, { cookie }); // warm-up
-    const api = await load(`${running.url}/api/sites`, { cookie });
-    clearInterval(sampler);
-    await load(`http://127.0.0.1:${(helloServer.address() as AddressInfo).port}/hello`);
-    const base = await load(`http://127.0.0.1:${(helloServer.address() as AddressInfo).port}/hello`);
-    helloServer.close();
-    await running.close();
-
-    const errors = api.errors + api.non2xx;
-    return {
-      name: "api: signed-in GET /api/sites under autocannon (10 connections, 6 s)",
-      figures: {
-        "signed-in read p50 (ms)": api.latency.p50,
-        "signed-in read p99 (ms)": api.latency.p99,
-        "signed-in read requests/s": Math.round(api.requests.average),
-        "hello-world p50 (ms)": base.latency.p50,
-        "hello-world p99 (ms)": base.latency.p99,
-        "p50 ratio (target ≤ 3×)": Number((api.latency.p50 / Math.max(base.latency.p50, 0.5)).toFixed(2)),
-        "errors or non-2xx": errors,
-        "server peak resident memory during the load (MB, target < 300)": Math.round(peakRss / 1024 / 1024),
-      },
-    };
+    const db = createDb(databaseUrl);
+    await runMigrations(db);
+    await seedDemoOnce(db);
+    await db.$client.end();
+    const port = await findFreePort(47_000, 3000);
+    const server = await spawnServer({ databaseUrl, port, authSecret: randomBytes(32).toString("base64url"), extra: { AUTH_RATE_LIMIT: "100000" } });
+    const helloPort = await findFreePort(50_000, 3000);
+    const hello = await spawnHelloWorld(helloPort);
+    try {
+      const agent = request.agent(server.url);
+      const token = await csrfToken(agent);
+      const signed = await agent.post("/auth/callback/credentials").set("X-Auth-Return-Redirect", "1").type("form").send({ email: "tomas@lanternfield.test", password: DEMO_PASSWORD, csrfToken: token });
+      const cookie = ([] as string[]).concat(signed.headers["set-cookie"]).find((c) => c.startsWith("authjs.session-token="))!.split(";")[0];
+      await load(`${server.url}/api/sites`, { cookie }); // warm-up
+      const api = await load(`${server.url}/api/sites`, { cookie });
+      const serverPeak = peakRssMb(server.child.pid!);
+      await load(`http://127.0.0.1:${helloPort}/hello`);
+      const base = await load(`http://127.0.0.1:${helloPort}/hello`);
+      return {
+        name: "api: signed-in GET /api/sites under autocannon (10 connections, 6 s), server in its own process",
+        figures: {
+          "signed-in read p50 (ms)": api.latency.p50,
+          "signed-in read p99 (ms)": api.latency.p99,
+          "signed-in read requests/s": Math.round(api.requests.average),
+          "hello-world p50 (ms)": base.latency.p50,
+          "hello-world p99 (ms)": base.latency.p99,
+          "p50 ratio (target ≤ 3×)": Number((api.latency.p50 / Math.max(base.latency.p50, 0.5)).toFixed(2)),
+          "errors or non-2xx": api.errors + api.non2xx,
+          "server peak resident memory, whole run (MB, target < 300)": serverPeak,
+        },
+      };
+    } finally {
+      server.child.kill("SIGTERM");
+      await server.exited;
+      hello.kill("SIGKILL");
+    }
   });
 }
 

@@ -3,10 +3,11 @@
 import { runRulesBench } from "./rules-bench";
 import { runApiBench } from "./api-bench";
 import { runSyncBench } from "./sync-bench";
+import { runWebBench } from "./web-bench";
 
 type Bench = () => Promise<{ name: string; figures: Record<string, number | string> }>;
 
-const BENCHES: Bench[] = [runRulesBench, runSyncBench, runApiBench];
+const BENCHES: Bench[] = [runRulesBench, runSyncBench, runApiBench, runWebBench];
 
 async function main() {
   for (const bench of BENCHES) {

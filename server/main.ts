@@ -1,6 +1,9 @@
 // The server alone, for production and for anything that runs it as a process (the fault tests):
 // DATABASE_URL and AUTH_SECRET from the environment, no database or web build of its own.
 // SIGTERM stops accepting, lets in-flight requests finish, closes the pool, then exits.
+// This project runs on Node 20; the object-store SDK prints a notice about its future releases at every start.
+process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ??= "true";
+
 import { readConfig } from "./config";
 import { startServer } from "./index";
 import { createLogger } from "./logger";

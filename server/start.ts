@@ -1,5 +1,8 @@
 // `npm start`: the private database, migrations, the demo data (once), the web build (when its
 // sources changed) and the server, at http://127.0.0.1:8080. Ctrl-C stops the server and the database.
+// This project runs on Node 20; the object-store SDK prints a notice about its future releases at every start.
+process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ??= "true";
+
 import { createHash } from "node:crypto";
 import path from "node:path";
 import { canPostgresReach, ClusterError, ensureDatabase, portIsFree, startCluster, type Cluster } from "../db/cluster";

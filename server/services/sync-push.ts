@@ -84,22 +84,17 @@ export async function pushChanges(db: Db, actor: Actor, request: PushRequest): P
 
 async function writeDirtyItems(tx: Tx, state: State, version: number) {
   const dirtyItems = [...state.items.values()].filter((i) => i.version === version);
-  for (let i = 0; i < dirtyItems.length; i += 1000) {
-    await tx
-      .insert(items)
-      .values(dirtyItems.slice(i, i + 1000))
-      .onConflictDoUpdate({
-        target: items.id,
-        set: {
-          data: sql`excluded.data`,
-          fieldVersions: sql`excluded.field_versions`,
-          deleted: sql`excluded.deleted`,
-          version: sql`excluded.version`,
-          updatedBy: sql`excluded.updated_by`,
-          updatedAt: sql`now()`,
-        },
-      });
-  }
+  if (!dirtyItems.length) return;
+  // One statement with one parameter (the rows as a JSON array): far cheaper to build and send than
+  // a multi-row VALUES list with ten bind values per row.
+  const rows = dirtyItems.map((i) => ({ id: i.id, team_id: i.teamId, site_id: i.siteId, kind: i.kind, data: i.data, field_versions: i.fieldVersions, deleted: i.deleted, version: i.version, updated_by: i.updatedBy }));
+  await tx.execute(sql`
+    insert into items (id, team_id, site_id, kind, data, field_versions, deleted, version, updated_by, updated_at)
+    select r.id, r.team_id, r.site_id, r.kind::item_kind, r.data, r.field_versions, r.deleted, r.version, r.updated_by, now()
+    from jsonb_to_recordset(${JSON.stringify(rows)}::jsonb)
+      as r(id text, team_id text, site_id text, kind text, data jsonb, field_versions jsonb, deleted boolean, version bigint, updated_by text)
+    on conflict (id) do update set data = excluded.data, field_versions = excluded.field_versions, deleted = excluded.deleted,
+      version = excluded.version, updated_by = excluded.updated_by, updated_at = now()`);
 }
 
 interface State {

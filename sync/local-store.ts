@@ -89,6 +89,18 @@ interface SiteRow {
 }
 const toSite = (r: SiteRow): SiteRecord => ({ id: r.id, name: r.name, address: r.address, status: r.status, units: r.units as SiteRecord["units"], closetRoomId: r.closet_room_id, version: r.version });
 
+interface PhotoRow {
+  id: string;
+  site_id: string;
+  item_id: string | null;
+  label: string;
+  mime: string;
+  size: number;
+  bytes: Uint8Array | null;
+  uploaded: number;
+}
+const toPhoto = (r: PhotoRow): LocalPhoto => ({ id: r.id, siteId: r.site_id, itemId: r.item_id, label: r.label, mime: r.mime, size: r.size, bytes: r.bytes, uploaded: r.uploaded === 1 });
+
 export interface SyncResult {
   pushed: number;
   pulled: number;
@@ -172,18 +184,11 @@ export class LocalStore {
   }
 
   async photos(siteId: string): Promise<LocalPhoto[]> {
-    const rows = await this.db.all<{ id: string; site_id: string; item_id: string | null; label: string; mime: string; size: number; bytes: Uint8Array | null; uploaded: number }>(
-      "select * from photos where site_id = ? order by created_at",
-      [siteId],
-    );
-    return rows.map((r) => ({ id: r.id, siteId: r.site_id, itemId: r.item_id, label: r.label, mime: r.mime, size: r.size, bytes: r.bytes, uploaded: r.uploaded === 1 }));
+    return (await this.db.all<PhotoRow>("select * from photos where site_id = ? order by created_at", [siteId])).map(toPhoto);
   }
 
   async photosToUpload(): Promise<LocalPhoto[]> {
-    const rows = await this.db.all<{ id: string; site_id: string; item_id: string | null; label: string; mime: string; size: number; bytes: Uint8Array | null }>(
-      "select id, site_id, item_id, label, mime, size, bytes from photos where uploaded = 0 order by created_at",
-    );
-    return rows.map((r) => ({ id: r.id, siteId: r.site_id, itemId: r.item_id, label: r.label, mime: r.mime, size: r.size, bytes: r.bytes, uploaded: false }));
+    return (await this.db.all<PhotoRow>("select * from photos where uploaded = 0 order by created_at")).map(toPhoto);
   }
 
   // ---- changing -------------------------------------------------------------------------------

@@ -8,12 +8,13 @@ import { Icon } from "@/components/ui/icons";
 import { ProgressBar } from "@/components/ui/progress-bar";
 import { AppText } from "@/components/ui/text";
 import { SyncPill } from "@/components/walk/sync-pill";
-import { colors, radius, space } from "@/constants/theme";
+import { colors, space } from "@/constants/theme";
 import type { SiteStatus } from "@/hooks/queries/sites";
 import { useLocalSites, useSiteItems, useSyncState } from "@/hooks/use-local-store";
 import { gapsLabel, walkProgress } from "@/survey/walk/gaps";
 import type { SiteRecord } from "@/sync/protocol";
 import { SiteStatusBadge } from "./site-status-badge";
+import { siteRowStyles } from "./site-row-styles";
 
 function LocalSiteRow({ site }: { site: SiteRecord }) {
   const items = useSiteItems(site.id);
@@ -80,17 +81,6 @@ export function LocalSitesList() {
 }
 
 const styles = StyleSheet.create({
-  list: { gap: space.sm },
-  row: {
-    flexDirection: "row",
-    alignItems: "center",
-    gap: space.md,
-    padding: space.lg,
-    backgroundColor: colors.card,
-    borderRadius: radius.lg,
-    borderWidth: 1,
-    borderColor: colors.line,
-  },
-  rowIcon: { width: 44, height: 44, borderRadius: radius.md, backgroundColor: colors.slate50, alignItems: "center", justifyContent: "center" },
+  ...siteRowStyles,
   progressLine: { flexDirection: "row", alignItems: "center", gap: space.sm, flexWrap: "wrap" },
 });

@@ -1,18 +1,19 @@
 import { Link } from "expo-router";
 import { useState } from "react";
-import { ActivityIndicator, Pressable, StyleSheet, View } from "react-native";
+import { ActivityIndicator, Pressable, View } from "react-native";
 import { Banner } from "@/components/ui/banner";
 import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Icon } from "@/components/ui/icons";
 import { Screen } from "@/components/ui/screen";
 import { AppText } from "@/components/ui/text";
-import { colors, radius, space } from "@/constants/theme";
+import { colors } from "@/constants/theme";
 import { useMe } from "@/hooks/queries/me";
 import { useSites } from "@/hooks/queries/sites";
 import { DeskSitesTable } from "@/components/desk/desk-sites-table";
 import { LocalSitesList } from "./local-sites-list";
 import { NewSiteForm } from "./new-site-form";
+import { siteRowStyles } from "./site-row-styles";
 import { SiteStatusBadge } from "./site-status-badge";
 
 const SUBTITLES = {
@@ -81,17 +82,4 @@ function ServerSites() {
   );
 }
 
-const styles = StyleSheet.create({
-  list: { gap: space.sm },
-  row: {
-    flexDirection: "row",
-    alignItems: "center",
-    gap: space.md,
-    padding: space.lg,
-    backgroundColor: colors.card,
-    borderRadius: radius.lg,
-    borderWidth: 1,
-    borderColor: colors.line,
-  },
-  rowIcon: { width: 44, height: 44, borderRadius: radius.md, backgroundColor: colors.slate50, alignItems: "center", justifyContent: "center" },
-});
+const styles = siteRowStyles;

@@ -4,7 +4,7 @@ import { DrizzleAdapter } from "@auth/drizzle-adapter";
 import type { ExpressAuthConfig } from "@auth/express";
 import Credentials from "@auth/express/providers/credentials";
 import Nodemailer from "@auth/express/providers/nodemailer";
-import { and, eq } from "drizzle-orm";
+import { eq, sql } from "drizzle-orm";
 import * as v from "valibot";
 import { SignInSchema } from "../../survey/team";
 import { accounts, memberships, sessions, users, verificationTokens } from "../../db/schema";
@@ -101,12 +101,17 @@ export function createAuthConfig(ctx: AppContext, mailer: Mailer): ExpressAuthCo
   };
 }
 
-export async function findMembership(ctx: AppContext, userId: string) {
-  const rows = await ctx.db
+/**
+ * The member's current team and role, read fresh on every signed-in request. A prepared statement
+ * (planned once per connection by Postgres, built once by Drizzle), since every API call runs it.
+ */
+export function membershipLookup(db: AppContext["db"]) {
+  const query = db
     .select({ userId: users.id, name: users.name, email: users.email, teamId: memberships.teamId, role: memberships.role })
     .from(memberships)
     .innerJoin(users, eq(users.id, memberships.userId))
-    .where(and(eq(memberships.userId, userId)))
-    .limit(1);
-  return rows[0];
+    .where(eq(memberships.userId, sql.placeholder("userId")))
+    .limit(1)
+    .prepare("member_by_user");
+  return async (userId: string) => (await query.execute({ userId }))[0];
 }

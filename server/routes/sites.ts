@@ -1,5 +1,5 @@
 import { randomUUID } from "node:crypto";
-import { and, asc, eq, inArray } from "drizzle-orm";
+import { and, eq, inArray } from "drizzle-orm";
 import { Router } from "express";
 import { memberships, siteAssignments, sites } from "../../db/schema";
 import { canSeeSite } from "../../survey/policy";
@@ -7,7 +7,7 @@ import { AssignSurveyorsSchema, CreateSiteSchema, InviteClientSchema, UpdateSite
 import { actorOf, requireTeam } from "../auth/actor";
 import type { AppContext } from "../context";
 import { HttpError, param, parseInput } from "../errors";
-import { siteFor, surveyorsBySite, type SiteWithAccess } from "../services/site-access";
+import { siteFor, teamSitesQuery, type SiteWithAccess } from "../services/site-access";
 import { inviteClientToSite } from "../services/client-invite";
 
 export function siteView(site: SiteWithAccess) {
@@ -26,15 +26,11 @@ export function siteView(site: SiteWithAccess) {
 export function sitesRouter(ctx: AppContext) {
   const { db } = ctx;
   const router = Router();
+  const sitesOfTeam = teamSitesQuery(db);
 
   router.get("/sites", async (_req, res) => {
     const actor = actorOf(res);
-    const rows = await db.select().from(sites).where(eq(sites.teamId, actor.teamId)).orderBy(asc(sites.name));
-    const surveyors = await surveyorsBySite(db, rows.map((r) => r.id));
-    const visible = rows
-      .map((r) => ({ ...r, surveyorIds: surveyors.get(r.id) ?? [] }))
-      .filter((s) => canSeeSite(actor, s))
-      .map(siteView);
+    const visible = (await sitesOfTeam(actor.teamId)).filter((s) => canSeeSite(actor, s)).map(siteView);
     res.json({ sites: visible });
   });
 

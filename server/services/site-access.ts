@@ -1,4 +1,4 @@
-import { eq, inArray } from "drizzle-orm";
+import { asc, eq, getTableColumns, sql } from "drizzle-orm";
 import { siteAssignments, sites } from "../../db/schema";
 import { decideSite, type Actor, type SiteAccess, type SiteAction } from "../../survey/policy";
 import type { Db } from "../../db/client";
@@ -8,18 +8,32 @@ export type SiteRow = typeof sites.$inferSelect;
 export type SiteWithAccess = SiteRow & SiteAccess;
 
 export async function loadSite(db: Db, siteId: string): Promise<SiteWithAccess | undefined> {
-  const [site] = await db.select().from(sites).where(eq(sites.id, siteId)).limit(1);
-  if (!site) return undefined;
-  const assigned = await db.select({ userId: siteAssignments.userId }).from(siteAssignments).where(eq(siteAssignments.siteId, siteId));
-  return { ...site, surveyorIds: assigned.map((a) => a.userId) };
+  const [site] = await selectSitesWithSurveyors(db).where(eq(sites.id, siteId));
+  return site;
 }
 
-export async function surveyorsBySite(db: Db, siteIds: string[]): Promise<Map<string, string[]>> {
-  const map = new Map<string, string[]>(siteIds.map((id) => [id, []]));
-  if (siteIds.length === 0) return map;
-  const rows = await db.select().from(siteAssignments).where(inArray(siteAssignments.siteId, siteIds));
-  for (const r of rows) map.get(r.siteId)?.push(r.userId);
-  return map;
+type Reader = Pick<Db, "select">;
+
+/** Sites with their assigned surveyors' ids, in one statement (add a where clause). */
+export function selectSitesWithSurveyors(db: Reader) {
+  return db
+    .select({
+      ...getTableColumns(sites),
+      surveyorIds: sql<string[]>`coalesce(array_agg(${siteAssignments.userId} order by ${siteAssignments.userId}) filter (where ${siteAssignments.userId} is not null), '{}')`,
+    })
+    .from(sites)
+    .leftJoin(siteAssignments, eq(siteAssignments.siteId, sites.id))
+    .groupBy(sites.id)
+    .$dynamic();
+}
+
+/**
+ * Every site of a team with its assigned surveyors, as a prepared statement: the site list is the
+ * first thing every screen asks for, so it is planned once per connection and built once here.
+ */
+export function teamSitesQuery(db: Db) {
+  const query = selectSitesWithSurveyors(db).where(eq(sites.teamId, sql.placeholder("teamId"))).orderBy(asc(sites.name)).prepare("sites_of_team");
+  return (teamId: string): Promise<SiteWithAccess[]> => query.execute({ teamId });
 }
 
 const FORBIDDEN_MESSAGES: Record<SiteAction, string> = {

@@ -34,6 +34,19 @@ function peakRssMb(pid: number): number {
   return Math.round(kb / 1024);
 }
 
+/** CPU time (user + system) a process has used so far, in ms, from /proc (clock ticks of 10 ms). */
+function cpuMs(pid: number): number {
+  const fields = fs.readFileSync(`/proc/${pid}/stat`, "utf8").split(") ")[1].split(" ");
+  return (Number(fields[11]) + Number(fields[12])) * 10;
+}
+
+/** Load `url` and also report the CPU the serving process spent per request (less noisy than latency on a shared machine). */
+async function loadMeasured(pid: number, url: string, headers: Record<string, string> = {}) {
+  const before = cpuMs(pid);
+  const result = await load(url, headers);
+  return { result, cpuUsPerRequest: ((cpuMs(pid) - before) * 1000) / Math.max(1, result.requests.total) };
+}
+
 /** A hello-world Express route in its own process, started the same way as the server (node --import tsx). */
 async function spawnHelloWorld(port: number) {
   const file = path.join(fs.mkdtempSync(path.join(os.tmpdir(), "dropwise-hello-")), "hello.ts");
@@ -43,6 +56,11 @@ async function spawnHelloWorld(port: number) {
   return child;
 }
 
+/** Extra Node flags for the server process, e.g. BENCH_SERVER_NODE_ARGS="--cpu-prof --cpu-prof-dir=/tmp/prof" to profile it. */
+function serverNodeArgs(): string[] {
+  return (process.env.BENCH_SERVER_NODE_ARGS ?? "").split(/\s+/).filter(Boolean);
+}
+
 export async function runApiBench(): Promise<{ name: string; figures: Record<string, number | string> }> {
   return withBenchDatabase(async (databaseUrl) => {
     const db = createDb(databaseUrl);
@@ -50,7 +68,7 @@ export async function runApiBench(): Promise<{ name: string; figures: Record<str
     await seedDemoOnce(db);
     await db.$client.end();
     const port = await findFreePort(47_000, 3000);
-    const server = await spawnServer({ databaseUrl, port, authSecret: randomBytes(32).toString("base64url"), extra: { AUTH_RATE_LIMIT: "100000" } });
+    const server = await spawnServer({ databaseUrl, port, authSecret: randomBytes(32).toString("base64url"), extra: { AUTH_RATE_LIMIT: "100000" }, nodeArgs: serverNodeArgs() });
     const helloPort = await findFreePort(50_000, 3000);
     const hello = await spawnHelloWorld(helloPort);
     try {
@@ -59,10 +77,10 @@ export async function runApiBench(): Promise<{ name: string; figures: Record<str
       const signed = await agent.post("/auth/callback/credentials").set("X-Auth-Return-Redirect", "1").type("form").send({ email: "tomas@lanternfield.test", password: DEMO_PASSWORD, csrfToken: token });
       const cookie = ([] as string[]).concat(signed.headers["set-cookie"]).find((c) => c.startsWith("authjs.session-token="))!.split(";")[0];
       await load(`${server.url}/api/sites`, { cookie }); // warm-up
-      const api = await load(`${server.url}/api/sites`, { cookie });
+      const { result: api, cpuUsPerRequest: apiCpu } = await loadMeasured(server.child.pid!, `${server.url}/api/sites`, { cookie });
       const serverPeak = peakRssMb(server.child.pid!);
       await load(`http://127.0.0.1:${helloPort}/hello`);
-      const base = await load(`http://127.0.0.1:${helloPort}/hello`);
+      const { result: base, cpuUsPerRequest: baseCpu } = await loadMeasured(hello.pid!, `http://127.0.0.1:${helloPort}/hello`);
       return {
         name: "api: signed-in GET /api/sites under autocannon (10 connections, 6 s), server in its own process",
         figures: {
@@ -72,6 +90,9 @@ export async function runApiBench(): Promise<{ name: string; figures: Record<str
           "hello-world p50 (ms)": base.latency.p50,
           "hello-world p99 (ms)": base.latency.p99,
           "p50 ratio (target ≤ 3×)": Number((api.latency.p50 / Math.max(base.latency.p50, 0.5)).toFixed(2)),
+          "server CPU per signed-in read (µs)": Math.round(apiCpu),
+          "server CPU per hello-world request (µs)": Math.round(baseCpu),
+          "CPU per request ratio": Number((apiCpu / Math.max(baseCpu, 1)).toFixed(2)),
           "errors or non-2xx": api.errors + api.non2xx,
           "server peak resident memory, whole run (MB, target < 300)": serverPeak,
         },

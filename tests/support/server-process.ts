@@ -12,10 +12,10 @@ export interface ServerProcess {
   output: () => string;
 }
 
-export async function spawnServer(env: { databaseUrl: string; port: number; authSecret: string; objectsDir?: string; extra?: Record<string, string> }): Promise<ServerProcess> {
+export async function spawnServer(env: { databaseUrl: string; port: number; authSecret: string; objectsDir?: string; extra?: Record<string, string>; nodeArgs?: string[] }): Promise<ServerProcess> {
   // `node --import tsx`, not the tsx wrapper: the pid we hold must be the server itself, or kill -9
   // would leave it running.
-  const child = spawn(process.execPath, ["--import", "tsx", path.join(projectRoot, "server", "main.ts")], {
+  const child = spawn(process.execPath, [...(env.nodeArgs ?? []), "--import", "tsx", path.join(projectRoot, "server", "main.ts")], {
     cwd: projectRoot,
     env: {
       ...process.env,

@@ -56,8 +56,8 @@ export const items = pgTable(
       .references(() => sites.id, { onDelete: "cascade" }),
     kind: itemKind().notNull(),
     data: jsonb().$type<Record<string, unknown>>().notNull(),
-    /** For each field: the team version and the client that last set it (finds same-field conflicts). */
-    fieldVersions: jsonb().$type<Record<string, { v: number; c: string }>>().notNull().default({}),
+    /** Which write last set each field: {"<team version>:<client id>": [field, ...]} (finds same-field conflicts). */
+    fieldVersions: jsonb().$type<Record<string, string[]>>().notNull().default({}),
     deleted: boolean().notNull().default(false),
     version: bigint({ mode: "number" }).notNull(),
     updatedBy: text().references(() => users.id, { onDelete: "set null" }),

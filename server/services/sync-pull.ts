@@ -5,7 +5,7 @@ import { itemConflicts, items, photos, sites, syncClients, syncRejections, teams
 import { canSeeSite, type Actor } from "../../survey/policy";
 import type { PullRequest, PullResponse, SiteRecord } from "../../sync/protocol";
 import { HttpError } from "../errors";
-import { surveyorsBySite } from "./site-access";
+import { selectSitesWithSurveyors } from "./site-access";
 
 export async function pullChanges(db: Db, actor: Actor, request: PullRequest): Promise<PullResponse> {
   return db.transaction(
@@ -15,9 +15,8 @@ export async function pullChanges(db: Db, actor: Actor, request: PullRequest): P
         throw new HttpError(403, "client_of_another_user", "This device's store belongs to another user. Sign in as that user, or start a fresh store.");
       }
       const [team] = await tx.select({ version: teams.version }).from(teams).where(eq(teams.id, actor.teamId));
-      const teamSites = await tx.select().from(sites).where(eq(sites.teamId, actor.teamId));
-      const surveyors = await surveyorsBySite(tx as unknown as Db, teamSites.map((s) => s.id));
-      const visible = teamSites.filter((s) => canSeeSite(actor, { ...s, surveyorIds: surveyors.get(s.id) ?? [] }));
+      const teamSites = await selectSitesWithSurveyors(tx).where(eq(sites.teamId, actor.teamId));
+      const visible = teamSites.filter((s) => canSeeSite(actor, s));
       const visibleIds = visible.map((s) => s.id);
       const known = new Set(request.knownSiteIds);
       const fresh = visibleIds.filter((id) => !known.has(id));

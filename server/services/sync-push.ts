@@ -9,13 +9,15 @@
 // - Different fields merge; the same field goes to the later arrival and the lost value is kept;
 //   a delete beats an update.
 import { randomUUID } from "node:crypto";
-import { and, eq, inArray, sql } from "drizzle-orm";
+import { and, eq, sql } from "drizzle-orm";
 import type { Db } from "../../db/client";
-import { itemConflicts, items, siteAssignments, sites, syncClients, syncRejections, teams } from "../../db/schema";
+import { itemConflicts, items, sites, syncClients, syncRejections, teams } from "../../db/schema";
 import { checkItemDraft, mergeFields } from "../../survey/capture";
 import { decideSite, type Actor } from "../../survey/policy";
 import type { Mutation, PushRequest, PushResponse } from "../../sync/protocol";
 import { HttpError } from "../errors";
+import { lastWrites, recordWrite } from "./field-writes";
+import { selectSitesWithSurveyors } from "./site-access";
 
 type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
 type ItemRow = typeof items.$inferSelect;
@@ -110,12 +112,10 @@ async function loadState(tx: Tx, mutations: Mutation[]): Promise<State> {
     if (m.name !== "site.update") itemIds.add(m.args.itemId);
     else if (m.args.fields.closetRoomId) itemIds.add(m.args.fields.closetRoomId);
   }
-  const itemRows = itemIds.size ? await tx.select().from(items).where(inArray(items.id, [...itemIds])) : [];
-  const siteRows = await tx.select().from(sites).where(inArray(sites.id, [...siteIds]));
-  const assigned = siteRows.length ? await tx.select().from(siteAssignments).where(inArray(siteAssignments.siteId, siteRows.map((s) => s.id))) : [];
-  const state: State = { items: new Map(itemRows.map((r) => [r.id, r])), sites: new Map() };
-  for (const s of siteRows) state.sites.set(s.id, { ...s, surveyorIds: assigned.filter((a) => a.siteId === s.id).map((a) => a.userId) });
-  return state;
+  // The ids go as one array parameter: a batch of 500 changes is one bind value, not 500.
+  const itemRows = itemIds.size ? await tx.select().from(items).where(sql`${items.id} = any(${sql.param([...itemIds])}::text[])`) : [];
+  const siteRows = await selectSitesWithSurveyors(tx).where(sql`${sites.id} = any(${sql.param([...siteIds])}::text[])`);
+  return { items: new Map(itemRows.map((r) => [r.id, r])), sites: new Map(siteRows.map((s) => [s.id, s])) };
 }
 
 interface ApplyContext {
@@ -151,9 +151,9 @@ function applyOne(m: Mutation, ctx: ApplyContext) {
         const [field, messages] = Object.entries(check.errors)[0];
         throw new Rejected("invalid", `${field}: ${messages[0]}`);
       }
-      const fieldVersions = { ...(existing?.fieldVersions ?? {}) };
+      const previousWrites = existing ? lastWrites(existing.fieldVersions) : undefined;
       for (const [field, value] of Object.entries(fields)) {
-        const previous = fieldVersions[field];
+        const previous = previousWrites?.get(field);
         const before = existing?.data[field];
         if (existing && previous && previous.v > baseVersion && previous.c !== clientId && !sameValue(before, value)) {
           ctx.conflicts.push({
@@ -169,8 +169,8 @@ function applyOne(m: Mutation, ctx: ApplyContext) {
             version,
           });
         }
-        fieldVersions[field] = { v: version, c: clientId };
       }
+      const fieldVersions = recordWrite(existing?.fieldVersions ?? {}, Object.keys(fields), version, clientId);
       state.items.set(itemId, {
         id: itemId,
         teamId: actor.teamId,

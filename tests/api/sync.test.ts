@@ -1,6 +1,8 @@
 // The sync protocol against a real Postgres: exactly-once pushes, gap refusal, atomic batches,
 // cursors that miss and repeat nothing, the merge rules and the client id binding.
 import { randomUUID } from "node:crypto";
+import fs from "node:fs";
+import path from "node:path";
 import { eq, sql } from "drizzle-orm";
 import type { Express } from "express";
 import request from "supertest";
@@ -204,6 +206,26 @@ describe("merge rules", () => {
     // The tombstone reaches others so they drop it too.
     const seen = await pull(priya, c1, cursor - 1);
     expect(seen.items.find((i) => i.id === id)).toMatchObject({ deleted: true });
+  });
+});
+
+describe("stored field writes", () => {
+  it("migration 0006 turns per-field versions into per-write lists, and a conflict is still found after it", async () => {
+    const id = randomUUID();
+    const c1 = randomUUID();
+    await push(priya, c1, [room(1, id, "Pantry")]).expect(200);
+    const row = await itemRow(id);
+    // The layout before the migration: one {v, c} entry per field.
+    const perField = Object.fromEntries(Object.keys(row.data).map((f) => [f, { v: row.version, c: c1 }]));
+    await testDb.db.update(items).set({ fieldVersions: perField as never }).where(eq(items.id, id));
+    const migration = fs.readFileSync(path.join(import.meta.dirname, "..", "..", "db", "migrations", "0006_field-writes.sql"), "utf8");
+    await testDb.db.execute(sql.raw(migration));
+    await testDb.db.execute(sql.raw(migration)); // running it twice changes nothing
+    expect((await itemRow(id)).fieldVersions).toEqual({ [`${row.version}:${c1}`]: Object.keys(row.data).sort() });
+    // Another surveyor renames from the version before: the converted record still names priya's write.
+    const cursor = await teamVersion();
+    await push(noor, randomUUID(), [{ id: 1, name: "item.put", args: { itemId: id, siteId: DEMO_SITE_ID, kind: "room", fields: { name: "Larder" }, baseVersion: row.version - 1 } }]).expect(200);
+    expect((await pull(priya, c1, cursor)).conflicts.find((c) => c.itemId === id)).toMatchObject({ field: "name", lostValue: "Pantry", keptValue: "Larder" });
   });
 });
 

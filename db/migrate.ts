@@ -3,9 +3,10 @@
 import path from "node:path";
 import { migrate } from "drizzle-orm/node-postgres/migrator";
 import type { Db } from "./client";
+import { projectRoot } from "./project-root";
 
 const MIGRATION_LOCK = 7_140_551; // any constant unique to Dropwise's migrations
-export const migrationsFolder = path.join(import.meta.dirname, "migrations");
+export const migrationsFolder = path.join(projectRoot, "db", "migrations");
 
 export async function runMigrations(db: Db): Promise<void> {
   const client = await db.$client.connect();

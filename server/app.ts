@@ -26,6 +26,7 @@ import { sitesRouter } from "./routes/sites";
 import { syncRouter } from "./routes/sync";
 import { teamRouter } from "./routes/team";
 import { requireSignedIn } from "./auth/actor";
+import { httpLogSerializers } from "./logger";
 import { webRouter } from "./web";
 
 function limiter(limit: number, message: string) {
@@ -57,6 +58,8 @@ export function createApp(ctx: AppContext) {
         return id;
       },
       autoLogging: { ignore: (req) => !req.url?.startsWith("/api") },
+      wrapSerializers: false,
+      serializers: httpLogSerializers,
     }),
   );
   app.use(securityHeaders(config.publicOrigin));

@@ -1,5 +1,6 @@
 import path from "node:path";
 import * as v from "valibot";
+import { projectRoot } from "../db/project-root";
 
 const port = v.pipe(
   v.optional(v.string(), "8080"),
@@ -58,7 +59,7 @@ export interface ServerConfig {
   payments: { secretKey?: string; webhookSecret?: string; apiOrigin?: string };
 }
 
-export const projectRoot = path.resolve(import.meta.dirname, "..");
+export { projectRoot };
 
 export function readConfig(env: Record<string, string | undefined> = process.env, overrides: Partial<ServerConfig> = {}): ServerConfig {
   const parsed = v.safeParse(EnvSchema, env);

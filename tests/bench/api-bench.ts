@@ -17,8 +17,11 @@ import { DEMO_PASSWORD } from "../../db/demo-accounts";
 import { runMigrations } from "../../db/migrate";
 import { seedDemoOnce } from "../../db/seed";
 import { projectRoot } from "../../server/config";
+import { startSmtpSink } from "../../server/mail/smtp-sink";
+import { startFakePaymentProvider } from "../../server/payments/fake-payment-provider";
+import { startLocalObjectStore } from "../../server/storage/local-object-store";
 import { csrfToken } from "../support/auth-client";
-import { spawnServer } from "../support/server-process";
+import { buildServer, spawnServer } from "../support/server-process";
 import { withBenchDatabase } from "./sync-bench";
 
 function load(url: string, headers: Record<string, string> = {}): Promise<autocannon.Result> {
@@ -47,11 +50,11 @@ async function loadMeasured(pid: number, url: string, headers: Record<string, st
   return { result, cpuUsPerRequest: ((cpuMs(pid) - before) * 1000) / Math.max(1, result.requests.total) };
 }
 
-/** A hello-world Express route in its own process, started the same way as the server (node --import tsx). */
+/** A hello-world Express route in its own process, run the way the production server runs (plain node, NODE_ENV=production). */
 async function spawnHelloWorld(port: number) {
-  const file = path.join(fs.mkdtempSync(path.join(os.tmpdir(), "dropwise-hello-")), "hello.ts");
+  const file = path.join(fs.mkdtempSync(path.join(os.tmpdir(), "dropwise-hello-")), "hello.mjs");
   fs.writeFileSync(file, `import express from ${JSON.stringify(path.join(projectRoot, "node_modules", "express", "index.js"))};\nconst app = express();\napp.disable("x-powered-by");\napp.get("/hello", (_req, res) => { res.json({ ok: true }); });\napp.listen(${port}, "127.0.0.1", () => console.log("listening on ${port}"));\n`);
-  const child = spawn(process.execPath, ["--import", "tsx", file], { cwd: projectRoot, stdio: ["ignore", "pipe", "inherit"] });
+  const child = spawn(process.execPath, [file], { cwd: projectRoot, stdio: ["ignore", "pipe", "inherit"], env: { ...process.env, NODE_ENV: "production" } });
   await new Promise<void>((resolve) => child.stdout!.on("data", (d) => String(d).includes("listening") && resolve()));
   return child;
 }
@@ -68,7 +71,32 @@ export async function runApiBench(): Promise<{ name: string; figures: Record<str
     await seedDemoOnce(db);
     await db.$client.end();
     const port = await findFreePort(47_000, 3000);
-    const server = await spawnServer({ databaseUrl, port, authSecret: randomBytes(32).toString("base64url"), extra: { AUTH_RATE_LIMIT: "100000" }, nodeArgs: serverNodeArgs() });
+    // The hosted services' local stand-ins run here, in the bench process, so the server process
+    // measured is shaped like a deployment: it talks to an object store, a mail relay and a payments
+    // provider over the network instead of carrying them inside.
+    const objectStore = await startLocalObjectStore(fs.mkdtempSync(path.join(os.tmpdir(), "dropwise-bench-objects-")));
+    const sinkDb = createDb(databaseUrl, { max: 2 });
+    const mailSink = await startSmtpSink(sinkDb, { port: 0 });
+    const payments = await startFakePaymentProvider({ webhookUrl: () => `http://127.0.0.1:${port}/api/payments/webhook` });
+    buildServer();
+    const server = await spawnServer({
+      entry: "build",
+      databaseUrl,
+      port,
+      authSecret: randomBytes(32).toString("base64url"),
+      nodeArgs: serverNodeArgs(),
+      extra: {
+        NODE_ENV: "production",
+        AUTH_RATE_LIMIT: "100000",
+        S3_ENDPOINT: objectStore.endpoint,
+        S3_ACCESS_KEY_ID: objectStore.credentials.accessKeyId,
+        S3_SECRET_ACCESS_KEY: objectStore.credentials.secretAccessKey,
+        SMTP_URL: `smtp://127.0.0.1:${mailSink.port}`,
+        PAYMENTS_SECRET_KEY: payments.secretKey,
+        PAYMENTS_WEBHOOK_SECRET: payments.webhookSecret,
+        PAYMENTS_API_ORIGIN: payments.origin,
+      },
+    });
     const helloPort = await findFreePort(50_000, 3000);
     const hello = await spawnHelloWorld(helloPort);
     try {
@@ -82,7 +110,7 @@ export async function runApiBench(): Promise<{ name: string; figures: Record<str
       await load(`http://127.0.0.1:${helloPort}/hello`);
       const { result: base, cpuUsPerRequest: baseCpu } = await loadMeasured(hello.pid!, `http://127.0.0.1:${helloPort}/hello`);
       return {
-        name: "api: signed-in GET /api/sites under autocannon (10 connections, 6 s), server in its own process",
+        name: "api: signed-in GET /api/sites under autocannon (10 connections, 6 s), the production build (npm run build:server) in its own process, hosted services outside it",
         figures: {
           "signed-in read p50 (ms)": api.latency.p50,
           "signed-in read p99 (ms)": api.latency.p99,
@@ -101,6 +129,8 @@ export async function runApiBench(): Promise<{ name: string; figures: Record<str
       server.child.kill("SIGTERM");
       await server.exited;
       hello.kill("SIGKILL");
+      await Promise.all([objectStore.close(), mailSink.close(), payments.close()]);
+      await sinkDb.$client.end();
     }
   });
 }

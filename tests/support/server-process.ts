@@ -1,5 +1,5 @@
 // The real server as a separate process, so a test can kill -9 it, SIGTERM it and start it again.
-import { spawn, type ChildProcess } from "node:child_process";
+import { spawn, spawnSync, type ChildProcess } from "node:child_process";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
@@ -12,10 +12,20 @@ export interface ServerProcess {
   output: () => string;
 }
 
-export async function spawnServer(env: { databaseUrl: string; port: number; authSecret: string; objectsDir?: string; extra?: Record<string, string>; nodeArgs?: string[] }): Promise<ServerProcess> {
+export const builtServerEntry = path.join(projectRoot, "build", "server.mjs");
+
+/** Builds the production server bundle (what `npm run build:server` does). */
+export function buildServer(): void {
+  const result = spawnSync("npm", ["run", "--silent", "build:server"], { cwd: projectRoot, encoding: "utf8" });
+  if (result.status !== 0) throw new Error(`npm run build:server failed: ${result.stderr || result.stdout}`);
+}
+
+export async function spawnServer(env: { databaseUrl: string; port: number; authSecret: string; objectsDir?: string; extra?: Record<string, string>; nodeArgs?: string[]; entry?: "source" | "build" }): Promise<ServerProcess> {
   // `node --import tsx`, not the tsx wrapper: the pid we hold must be the server itself, or kill -9
   // would leave it running.
-  const child = spawn(process.execPath, [...(env.nodeArgs ?? []), "--import", "tsx", path.join(projectRoot, "server", "main.ts")], {
+  // The production build (npm run build:server) runs on plain node; the sources through tsx.
+  const entry = env.entry === "build" ? [builtServerEntry] : ["--import", "tsx", path.join(projectRoot, "server", "main.ts")];
+  const child = spawn(process.execPath, [...(env.nodeArgs ?? []), ...entry], {
     cwd: projectRoot,
     env: {
       ...process.env,

@@ -10,9 +10,9 @@ import { createSyncStoragePersister } from "@tanstack/query-sync-storage-persist
 import { QueryClient, onlineManager } from "@tanstack/react-query";
 import { PersistQueryClientProvider } from "@tanstack/react-query-persist-client";
 import { useState } from "react";
-import { ActivityIndicator, View } from "react-native";
 import { SafeAreaProvider } from "react-native-safe-area-context";
-import { colors } from "@/constants/theme";
+import { cachedMe } from "@/hooks/queries/me";
+import { openLocalStoreEarly } from "@/hooks/use-local-store";
 
 // TanStack Query assumes "online" at start: tell it the truth, or work restored offline is lost.
 if (typeof navigator !== "undefined") onlineManager.setOnline(navigator.onLine);
@@ -22,11 +22,18 @@ if (typeof navigator !== "undefined" && "serviceWorker" in navigator && process.
   navigator.serviceWorker.register("/sw.js").catch(() => undefined);
 }
 
+// A team member works from the phone's own store: start opening it for the person this device last
+// saw while the rest of the app loads (offline, nothing else stands between a reload and the walk).
+const lastSeen = cachedMe();
+if (typeof window !== "undefined" && lastSeen && lastSeen.role !== "client") openLocalStoreEarly(lastSeen.user.id);
+
 const persister = createSyncStoragePersister({ storage: typeof window !== "undefined" ? window.localStorage : undefined, key: "dropwise.queries.v1" });
 
 export function AppProviders({ children }: { children: ReactNode }) {
-  // The font files are bundled with the app and load from our own origin.
-  const [fontsLoaded, fontError] = useFonts({
+  // The font files are bundled with the app and load from our own origin. Nothing waits for them:
+  // the screens (and the routes and the phone's store behind them) get going at once, and the
+  // text takes its face as soon as the files are in, a moment later (the phone keeps its own copy).
+  useFonts({
     NunitoSans_400Regular,
     NunitoSans_600SemiBold,
     NunitoSans_700Bold,
@@ -34,13 +41,6 @@ export function AppProviders({ children }: { children: ReactNode }) {
   });
   const [queryClient] = useState(() => new QueryClient({ defaultOptions: { queries: { staleTime: 30_000, retry: 1, gcTime: 24 * 3600_000 } } }));
 
-  if (!fontsLoaded && !fontError) {
-    return (
-      <View style={{ flex: 1, alignItems: "center", justifyContent: "center", backgroundColor: colors.paper }}>
-        <ActivityIndicator color={colors.slate800} />
-      </View>
-    );
-  }
   return (
     <SafeAreaProvider>
       <PersistQueryClientProvider

@@ -1,7 +1,7 @@
 // The phone's offline store and its sync runner, for the signed-in team member, and the hooks that
 // read and change it. Queries read the local store, so they run with network mode "always".
 import { onlineManager, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import { createContext, useContext, useEffect, useState, useSyncExternalStore, type ReactNode } from "react";
+import { createContext, useContext, useEffect, useMemo, useState, useSyncExternalStore, type ReactNode } from "react";
 import type { ItemKind } from "@/survey/capture";
 import { openUserDatabase } from "@/sync/expo-sqlite-db";
 import { httpTransport } from "@/sync/http-transport";
@@ -11,8 +11,12 @@ import type { MutationArgs } from "@/sync/protocol";
 import { SyncRunner, type SyncSnapshot } from "@/sync/sync-runner";
 
 interface LocalContext {
-  store: LocalStore;
-  runner: SyncRunner;
+  /** The store, once open: screens render while it opens, and their reads and writes wait on it. */
+  store: Promise<LocalStore>;
+  /** The sync runner, once the store is open. */
+  runner: Promise<SyncRunner>;
+  /** The same runner for what renders its state; null while the store opens. */
+  current: SyncRunner | null;
 }
 
 const Ctx = createContext<LocalContext | null>(null);
@@ -28,42 +32,83 @@ export const localKeys = {
 
 export type LocalStoreState = { status: "opening" } | { status: "ready" } | { status: "failed"; message: string };
 
-/** Opens the user's store and starts syncing; children render once it is open. */
+function openStore(userId: string): Promise<LocalStore> {
+  return openUserDatabase(userId).then((db) => LocalStore.open(db));
+}
+
+let early: { userId: string; store: Promise<LocalStore> } | undefined;
+
+/**
+ * Starts opening a user's store before the app has rendered (the SQLite engine, its file and the
+ * schema check take a few hundred milliseconds), so that it is ready when the signed-in layout asks.
+ * The provider for that user takes it over once; any other user's store opens as usual.
+ */
+export function openLocalStoreEarly(userId: string) {
+  if (early?.userId === userId) return;
+  const store = openStore(userId);
+  store.catch(() => undefined); // the provider opens again, and reports the failure
+  early = { userId, store };
+}
+
+function takeStore(userId: string): Promise<LocalStore> {
+  const ahead = early?.userId === userId ? early.store : undefined;
+  early = undefined;
+  return ahead ? ahead.catch(() => openStore(userId)) : openStore(userId);
+}
+
+/**
+ * Opens the user's store and starts syncing. Children render at once (their routes load and lay out
+ * while SQLite opens); what they read from the store waits for it. If it cannot open, `fallback`
+ * says so in their place.
+ */
 export function LocalStoreProvider({ userId, children, fallback }: { userId: string; children: ReactNode; fallback: (state: LocalStoreState) => ReactNode }) {
   const qc = useQueryClient();
-  const [ctx, setCtx] = useState<LocalContext | null>(null);
   const [state, setState] = useState<LocalStoreState>({ status: "opening" });
+  const [current, setCurrent] = useState<SyncRunner | null>(null);
+  // Started during the first render, so that the screens' first reads (their effects run before
+  // ours) already have something to wait on.
+  const opening = useMemo(() => {
+    let started!: (runner: SyncRunner) => void;
+    const runner = new Promise<SyncRunner>((resolve) => (started = resolve));
+    return { store: takeStore(userId), runner, started };
+  }, [userId]);
 
   useEffect(() => {
     let disposed = false;
     let runner: SyncRunner | undefined;
     const onOnline = () => void runner?.syncNow();
-    (async () => {
-      const store = await LocalStore.open(await openUserDatabase(userId));
-      if (disposed) return;
-      runner = new SyncRunner({
-        store,
-        transport: httpTransport,
-        upload: uploadPhoto,
-        isOnline: () => onlineManager.isOnline(),
-        onSynced: () => void qc.invalidateQueries({ queryKey: localKeys.root }),
-      });
-      setCtx({ store, runner });
-      setState({ status: "ready" });
-      window.addEventListener("online", onOnline);
-      void runner.syncNow();
-    })().catch((err: unknown) => {
-      if (!disposed) setState({ status: "failed", message: err instanceof Error ? err.message : String(err) });
-    });
+    setState({ status: "opening" });
+    setCurrent(null);
+    opening.store.then(
+      (store) => {
+        if (disposed) return;
+        runner = new SyncRunner({
+          store,
+          transport: httpTransport,
+          upload: uploadPhoto,
+          isOnline: () => onlineManager.isOnline(),
+          onSynced: () => void qc.invalidateQueries({ queryKey: localKeys.root }),
+        });
+        opening.started(runner);
+        setCurrent(runner);
+        setState({ status: "ready" });
+        window.addEventListener("online", onOnline);
+        void runner.syncNow();
+      },
+      (err: unknown) => {
+        if (!disposed) setState({ status: "failed", message: err instanceof Error ? err.message : String(err) });
+      },
+    );
     return () => {
       disposed = true;
       window.removeEventListener("online", onOnline);
       runner?.dispose();
     };
-  }, [userId, qc]);
+  }, [opening, qc]);
 
-  if (!ctx) return <>{fallback(state)}</>;
-  return <Ctx.Provider value={ctx}>{children}</Ctx.Provider>;
+  const value = useMemo<LocalContext>(() => ({ store: opening.store, runner: opening.runner, current }), [opening, current]);
+  if (state.status === "failed") return <>{fallback(state)}</>;
+  return <Ctx.Provider value={value}>{children}</Ctx.Provider>;
 }
 
 export function useLocal(): LocalContext {
@@ -74,22 +119,22 @@ export function useLocal(): LocalContext {
 
 export function useLocalSites() {
   const { store } = useLocal();
-  return useQuery({ queryKey: localKeys.sites(), queryFn: () => store.sites(), networkMode: "always" });
+  return useQuery({ queryKey: localKeys.sites(), queryFn: async () => (await store).sites(), networkMode: "always" });
 }
 
 export function useLocalSite(siteId: string) {
   const { store } = useLocal();
-  return useQuery({ queryKey: localKeys.site(siteId), queryFn: async () => (await store.site(siteId)) ?? null, networkMode: "always" });
+  return useQuery({ queryKey: localKeys.site(siteId), queryFn: async () => (await (await store).site(siteId)) ?? null, networkMode: "always" });
 }
 
 export function useSiteItems(siteId: string) {
   const { store } = useLocal();
-  return useQuery({ queryKey: localKeys.items(siteId), queryFn: () => store.items(siteId), networkMode: "always" });
+  return useQuery({ queryKey: localKeys.items(siteId), queryFn: async () => (await store).items(siteId), networkMode: "always" });
 }
 
 export function useSitePhotos(siteId: string) {
   const { store } = useLocal();
-  return useQuery({ queryKey: localKeys.photos(siteId), queryFn: () => store.photos(siteId), networkMode: "always" });
+  return useQuery({ queryKey: localKeys.photos(siteId), queryFn: async () => (await store).photos(siteId), networkMode: "always" });
 }
 
 /** Refused changes and lost same-field values that the surveyor has not seen yet. */
@@ -98,11 +143,14 @@ export function useSyncNotices() {
   const qc = useQueryClient();
   const query = useQuery({
     queryKey: localKeys.notices(),
-    queryFn: async () => ({ rejections: await store.unseenRejections(), conflicts: await store.unseenConflicts() }),
+    queryFn: async () => {
+      const open = await store;
+      return { rejections: await open.unseenRejections(), conflicts: await open.unseenConflicts() };
+    },
     networkMode: "always",
   });
   const dismiss = useMutation({
-    mutationFn: (what: { rejections?: number[]; conflicts?: string[] }) => store.markSeen(what),
+    mutationFn: async (what: { rejections?: number[]; conflicts?: string[] }) => (await store).markSeen(what),
     networkMode: "always",
     onSettled: () => qc.invalidateQueries({ queryKey: localKeys.notices() }),
   });
@@ -111,39 +159,44 @@ export function useSyncNotices() {
 
 /** Capture actions for one site: each writes the local store and its outbox at once, then syncs. */
 export function useCapture(siteId: string) {
-  const { store, runner } = useLocal();
+  const local = useLocal();
   const qc = useQueryClient();
   const after = async () => {
     await qc.invalidateQueries({ queryKey: localKeys.root });
+    const runner = await local.runner;
     await runner.refresh();
     void runner.syncNow();
   };
   return {
     putItem: async (kind: ItemKind, itemId: string, fields: Record<string, unknown>) => {
-      await store.putItem(siteId, kind, itemId, fields);
+      await (await local.store).putItem(siteId, kind, itemId, fields);
       await after();
     },
     deleteItem: async (itemId: string) => {
-      await store.deleteItem(siteId, itemId);
+      await (await local.store).deleteItem(siteId, itemId);
       await after();
     },
     updateSite: async (fields: MutationArgs<"site.update">["fields"]) => {
-      await store.updateSite(siteId, fields);
+      await (await local.store).updateSite(siteId, fields);
       await after();
     },
     addPhoto: async (photo: { itemId: string | null; label: string; mime: string; bytes: Uint8Array }) => {
-      const id = await store.addPhoto({ siteId, ...photo });
+      const id = await (await local.store).addPhoto({ siteId, ...photo });
       await after();
       return id;
     },
   };
 }
 
+// What the sync pill shows while the store opens: nothing confirmed yet, nothing known to be waiting.
+const OPENING: SyncSnapshot = { phase: "up-to-date", pending: 0, photosWaiting: 0, uploading: null, lastSyncedAt: null, problem: null, failures: 0 };
+const noSubscription = () => () => undefined;
+
 export function useSyncState(): SyncSnapshot & { syncNow: () => Promise<void> } {
-  const { runner } = useLocal();
+  const { current, runner } = useLocal();
   const snapshot = useSyncExternalStore(
-    (cb) => runner.subscribe(cb),
-    () => runner.state,
+    current ? (cb) => current.subscribe(cb) : noSubscription,
+    () => (current ? current.state : OPENING),
   );
-  return { ...snapshot, syncNow: () => runner.syncNow() };
+  return { ...snapshot, syncNow: async () => (await runner).syncNow() };
 }

@@ -1,7 +1,10 @@
 // The service worker that lets the app open with no signal: it keeps every file of the current web
 // build (listed here from dist/, versioned by the build's source hash) and answers from that copy
-// when the network is gone. The API and sign-in are never cached: the outbox in the phone's own
-// store is what keeps a walk safe offline.
+// first, so a reload never waits on a slow or missing network. The kept page and the kept files are
+// one build; a newer build arrives as a newer worker (the browser checks /sw.js on every load), which
+// keeps its own copy. The previous build's copy stays until the one after, so a page still running it
+// can load the routes it has not opened yet. The API and sign-in are never cached: the outbox in the
+// phone's own store is what keeps a walk safe offline.
 import fs from "node:fs";
 import path from "node:path";
 
@@ -36,10 +39,26 @@ self.addEventListener("install", (event) => {
 });
 
 self.addEventListener("activate", (event) => {
+  // Keep this build and the one before it (cache names list in the order they were made).
   event.waitUntil(
-    caches.keys().then((keys) => Promise.all(keys.filter((k) => k.startsWith("dropwise-shell-") && k !== CACHE).map((k) => caches.delete(k)))).then(() => self.clients.claim()),
+    caches
+      .keys()
+      .then((keys) => {
+        const builds = keys.filter((k) => k.startsWith("dropwise-shell-") && k !== CACHE);
+        return Promise.all(builds.slice(0, -1).map((k) => caches.delete(k)));
+      })
+      .then(() => self.clients.claim()),
   );
 });
+
+async function fromNetworkKept(request) {
+  const response = await fetch(request);
+  if (response.ok && response.type === "basic") {
+    const copy = response.clone();
+    caches.open(CACHE).then((cache) => cache.put(request, copy)).catch(() => undefined);
+  }
+  return response;
+}
 
 self.addEventListener("fetch", (event) => {
   const request = event.request;
@@ -48,20 +67,18 @@ self.addEventListener("fetch", (event) => {
   if (url.origin !== self.location.origin) return;
   if (url.pathname.startsWith("/api/") || url.pathname.startsWith("/auth/") || url.pathname === "/sw.js") return;
   if (request.mode === "navigate") {
-    // The page itself: the network when it answers, else the kept shell (client-side routes all use it).
+    // The page itself (client-side routes all use the one shell): the kept copy of this build, else the network.
     event.respondWith(
-      fetch(request).catch(() => caches.open(CACHE).then((cache) => cache.match(SHELL)).then((hit) => hit || Response.error())),
+      caches
+        .open(CACHE)
+        .then((cache) => cache.match(SHELL))
+        .then((hit) => hit || fetch(request)),
     );
     return;
   }
+  // Build files have hashed names and never change: any kept copy (this build's or the previous one's) will do.
   event.respondWith(
-    caches.open(CACHE).then(async (cache) => {
-      const hit = await cache.match(request, { ignoreSearch: url.pathname.endsWith(".wasm") });
-      if (hit) return hit;
-      const response = await fetch(request);
-      if (response.ok && response.type === "basic") cache.put(request, response.clone());
-      return response;
-    }),
+    caches.match(request, { ignoreSearch: url.pathname.endsWith(".wasm") }).then((hit) => hit || fromNetworkKept(request)),
   );
 });
 `;

@@ -18,7 +18,8 @@ export const meKeys = { root: ["me"] as const };
 
 const CACHE_KEY = "dropwise.session.v1";
 
-function cachedMe(): Me | undefined {
+/** The last session this device saw (kept for offline use), or undefined. */
+export function cachedMe(): Me | undefined {
   try {
     const raw = globalThis.localStorage?.getItem(CACHE_KEY);
     return raw ? (JSON.parse(raw) as Me) : undefined;

@@ -17,7 +17,7 @@ export default function SignedInLayout() {
   if (session.isPending) {
     return (
       <Centered>
-        <ActivityIndicator color={colors.slate800} />
+        <ActivityIndicator color={colors.slate800} aria-label="Loading" />
       </Centered>
     );
   }
@@ -35,7 +35,7 @@ export default function SignedInLayout() {
       userId={me.user.id}
       fallback={(state) => (
         <Centered>
-          {state.status === "failed" ? <Banner tone="danger" title="This browser cannot keep a walk offline">{state.message}</Banner> : <ActivityIndicator color={colors.slate800} />}
+          {state.status === "failed" ? <Banner tone="danger" title="This browser cannot keep a walk offline">{state.message}</Banner> : <ActivityIndicator color={colors.slate800} aria-label="Loading" />}
         </Centered>
       )}
     >

@@ -56,7 +56,7 @@ export function InviteScreen() {
   if (invite.isPending) {
     return (
       <AuthFrame title="Your invitation">
-        <ActivityIndicator color={colors.slate800} />
+        <ActivityIndicator color={colors.slate800} aria-label="Loading" />
       </AuthFrame>
     );
   }

@@ -82,7 +82,7 @@ export function DeskSitesTable() {
   const counts = new Map<SiteStatus, number>();
   for (const s of sites.data ?? []) counts.set(s.status, (counts.get(s.status) ?? 0) + 1);
 
-  if (sites.isPending) return <ActivityIndicator color={colors.slate800} />;
+  if (sites.isPending) return <ActivityIndicator color={colors.slate800} aria-label="Loading" />;
   if (sites.isError) return <Banner tone="danger">{sites.error.message}</Banner>;
 
   return (

@@ -26,7 +26,7 @@ export function PlanView({ siteId }: { siteId: string }) {
   const { wide } = useBreakpoint();
   const plan = usePlan(siteId);
   const [part, setPart] = useState<Part>("devices");
-  if (plan.isPending) return <ActivityIndicator color={colors.slate800} />;
+  if (plan.isPending) return <ActivityIndicator color={colors.slate800} aria-label="Loading" />;
   if (plan.isError) return <Banner tone="danger" title="The plan could not be worked out">{plan.error.message}</Banner>;
   const p = plan.data;
   const mayEdit = me.role === "admin" || me.role === "designer";

@@ -25,7 +25,7 @@ function ReportSection({ siteId, hasClient }: { siteId: string; hasClient: boole
   const publish = usePublishReport(siteId);
   const manages = me.role === "admin" || me.role === "designer";
 
-  if (reports.isPending) return <ActivityIndicator color={colors.slate800} />;
+  if (reports.isPending) return <ActivityIndicator color={colors.slate800} aria-label="Loading" />;
   if (reports.isError) return <Banner tone="danger">{reports.error.message}</Banner>;
 
   return (
@@ -58,7 +58,7 @@ function ReportSection({ siteId, hasClient }: { siteId: string; hasClient: boole
           body={me.role === "client" ? "Your installer has not published the scope yet. You get an e-mail when they do." : "Once the designer publishes the plan, the homeowner reads the scope here, asks for changes or signs it off."}
         />
       ) : view.isPending ? (
-        <ActivityIndicator color={colors.slate800} />
+        <ActivityIndicator color={colors.slate800} aria-label="Loading" />
       ) : view.isError ? (
         <Banner tone="danger">{view.error.message}</Banner>
       ) : (

@@ -29,7 +29,7 @@ export function SiteSectionScreen({ children }: { children: Children }) {
 function ClientSection({ children }: { children: Children }) {
   const { id } = useLocalSearchParams<{ id: string }>();
   const site = useSite(id);
-  if (site.isPending) return <Screen title="Site"><ActivityIndicator color={colors.slate800} /></Screen>;
+  if (site.isPending) return <Screen title="Site"><ActivityIndicator color={colors.slate800} aria-label="Loading" /></Screen>;
   if (site.isError) {
     return (
       <Screen title="Site">
@@ -51,7 +51,7 @@ function TeamSection({ children }: { children: Children }) {
   const local = useLocalSite(id);
   const header = server.data ?? local.data ?? null;
   if (!header) {
-    if (local.isPending || (server.isPending && !server.isPaused)) return <Screen title="Site"><ActivityIndicator color={colors.slate800} /></Screen>;
+    if (local.isPending || (server.isPending && !server.isPaused)) return <Screen title="Site"><ActivityIndicator color={colors.slate800} aria-label="Loading" /></Screen>;
     return (
       <Screen title="Site">
         <Banner tone="danger">{server.error?.message ?? "This site is not on this phone yet. Open it once with a connection to keep it for offline walks."}</Banner>

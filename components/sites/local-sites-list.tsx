@@ -56,7 +56,7 @@ export function LocalSitesList() {
   return (
     <>
       <SyncPill />
-      {sites.isPending || (firstSync && !sites.data?.length) ? <ActivityIndicator color={colors.slate800} /> : null}
+      {sites.isPending || (firstSync && !sites.data?.length) ? <ActivityIndicator color={colors.slate800} aria-label="Loading" /> : null}
       {sites.isError ? <Banner tone="danger">{sites.error.message}</Banner> : null}
       {sites.data?.length === 0 && !firstSync ? (
         <EmptyState

@@ -51,7 +51,7 @@ function ServerSites() {
       actions={me.permissions["site:create"] && !creating ? <Button label="New site" onPress={() => setCreating(true)} /> : undefined}
     >
       {creating ? <NewSiteForm onDone={() => setCreating(false)} /> : null}
-      {sites.isPending ? <ActivityIndicator color={colors.slate800} /> : null}
+      {sites.isPending ? <ActivityIndicator color={colors.slate800} aria-label="Loading" /> : null}
       {sites.isError ? <Banner tone="danger">{sites.error.message}</Banner> : null}
       {sites.data?.length === 0 ? (
         <EmptyState

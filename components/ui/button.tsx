@@ -29,7 +29,7 @@ export function Button({ label, tone = "primary", busy, disabled, style, ...rest
         style,
       ]}
     >
-      {busy ? <ActivityIndicator color={tone === "primary" || tone === "danger" ? colors.onDark : colors.slate800} /> : null}
+      {busy ? <ActivityIndicator color={tone === "primary" || tone === "danger" ? colors.onDark : colors.slate800} aria-label="Working" /> : null}
       <AppText style={[styles.label, { color: labelColor[tone] }]}>{label}</AppText>
     </Pressable>
   );

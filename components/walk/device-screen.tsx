@@ -44,7 +44,7 @@ export function DeviceScreen() {
   const back = room ? { href: `/sites/${siteId}/rooms/${room.id}`, label: room.name } : { href: `/sites/${siteId}`, label: site?.name ?? "Rooms" };
 
   if (error) return <Screen title="Device" back={back}><Banner tone="danger">{error.message}</Banner></Screen>;
-  if (isPending || !walk || !site) return <Screen title="Device" back={back}><ActivityIndicator color={colors.slate800} /></Screen>;
+  if (isPending || !walk || !site) return <Screen title="Device" back={back}><ActivityIndicator color={colors.slate800} aria-label="Loading" /></Screen>;
   if (!device) {
     return (
       <Screen title="Device" back={back}>

@@ -128,7 +128,7 @@ export function RoomScreen() {
   const back = { href: `/sites/${siteId}`, label: site?.name ?? "Rooms" };
 
   if (error) return <Screen title="Room" back={back}><Banner tone="danger">{error.message}</Banner></Screen>;
-  if (isPending || !walk) return <Screen title="Room" back={back}><ActivityIndicator color={colors.slate800} /></Screen>;
+  if (isPending || !walk) return <Screen title="Room" back={back}><ActivityIndicator color={colors.slate800} aria-label="Loading" /></Screen>;
   const room = walk.rooms.get(roomId);
   if (!room || !site) {
     return (

@@ -90,7 +90,7 @@ export function WalkPanel({ siteId, after }: { siteId: string; after?: ReactNode
   const [addingFloor, setAddingFloor] = useState(false);
 
   if (error) return <Banner tone="danger">{error.message}</Banner>;
-  if (isPending) return <ActivityIndicator color={colors.slate800} />;
+  if (isPending) return <ActivityIndicator color={colors.slate800} aria-label="Loading" />;
   if (!site || !walk) {
     return (
       <>

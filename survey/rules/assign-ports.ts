@@ -3,6 +3,7 @@ import { isPoeSource, type PoeSource, type PowerSource } from '../model/power-so
 import type { Site } from '../model/site';
 import { POE_TYPES } from '../standards/poe-types';
 import { formatPercent, formatWatts, roundTo } from '../units';
+import { deferredField } from './deferred-text';
 import { evaluateDevice } from './recommend-device';
 import type { DeviceEvaluation, PlanWarning } from './result-types';
 
@@ -317,30 +318,30 @@ function summarise(states: readonly SourceState[], poeType: number): TypeSummary
   return { eligible, eligiblePorts, withPorts, best };
 }
 
+/** Why a device fits nowhere; the reason's words are written when first read. */
 function unassignedReason(
   deviceId: string, poeType: number, poeClass: number, need: number,
   sum: TypeSummary, byClass: boolean, ceiling: number,
 ): UnassignedDevice {
   if (sum.eligible === 0) {
-    return {
-      deviceId, code: 'no_port_of_type',
-      reason: `It needs a ${typeName(poeType)} port (Class ${poeClass}); no switch or injector in the plan has one. Add a ${typeName(poeType)} injector or switch.`,
-    };
+    return deferredField<UnassignedDevice, 'reason'>({ deviceId, code: 'no_port_of_type', reason: '' }, 'reason', () =>
+      `It needs a ${typeName(poeType)} port (Class ${poeClass}); no switch or injector in the plan has one. Add a ${typeName(poeType)} injector or switch.`);
   }
   if (sum.best === null) {
-    return {
-      deviceId, code: 'ports_full',
-      reason: `All ${sum.eligiblePorts} suitable PoE ports (${typeName(poeType)} or better) are taken. Add a switch or an injector.`,
-    };
+    const eligiblePorts = sum.eligiblePorts;
+    return deferredField<UnassignedDevice, 'reason'>({ deviceId, code: 'ports_full', reason: '' }, 'reason', () =>
+      `All ${eligiblePorts} suitable PoE ports (${typeName(poeType)} or better) are taken. Add a switch or an injector.`);
   }
   const best = sum.best;
   const left = Math.max(0, best.limitW - best.usedW);
-  const what = byClass ? 'sets aside' : 'is expected to draw';
-  const limitText = best.src.kind === 'poe_switch'
-    ? `its ${formatPercent(ceiling)} planning ceiling (common practice, no standard) of ${formatWatts(best.budgetW)}`
-    : `its ${formatWatts(best.budgetW)} budget`;
-  return {
-    deviceId, code: 'over_ceiling',
-    reason: `It ${what} ${formatWatts(roundTo(need, 2))}, but the roomiest suitable source, "${best.src.name}", has only ${formatWatts(roundTo(left, 2))} left under ${limitText}. Move devices, use a bigger switch or add an injector.`,
-  };
+  const name = best.src.name;
+  const isSwitch = best.src.kind === 'poe_switch';
+  const budgetW = best.budgetW;
+  return deferredField<UnassignedDevice, 'reason'>({ deviceId, code: 'over_ceiling', reason: '' }, 'reason', () => {
+    const what = byClass ? 'sets aside' : 'is expected to draw';
+    const limitText = isSwitch
+      ? `its ${formatPercent(ceiling)} planning ceiling (common practice, no standard) of ${formatWatts(budgetW)}`
+      : `its ${formatWatts(budgetW)} budget`;
+    return `It ${what} ${formatWatts(roundTo(need, 2))}, but the roomiest suitable source, "${name}", has only ${formatWatts(roundTo(left, 2))} left under ${limitText}. Move devices, use a bigger switch or add an injector.`;
+  });
 }

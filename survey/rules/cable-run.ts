@@ -1,6 +1,6 @@
 import { conductorOhmPerM, pairsetLoopOhm, type AwgGauge } from '../standards/awg';
 import {
-  CABLE_CATEGORY_NAMES, CHANNEL_LIMITS, DEFAULT_GAUGE, NEC_725_144_THRESHOLD_W, TSB_184_A,
+  CABLE_CATEGORY_NAMES, CHANNEL_LIMITS, DEFAULT_GAUGE, NEC_725_144_THRESHOLD_W, TSB_184_A, type CableCategory,
 } from '../standards/cabling';
 import { CAUTIONS, type Caution } from '../standards/cautions';
 import { PLANNING } from '../standards/planning-defaults';
@@ -8,8 +8,11 @@ import { POE_CLASSES, type PoeClass } from '../standards/poe-classes';
 import { POE_TYPES, type PoeType } from '../standards/poe-types';
 import type { CableRun } from '../model/device';
 import { formatLength, formatOhms, formatPercent, formatVolts, formatWatts, roundTo, type UnitSystem } from '../units';
+import { deferredField } from './deferred-text';
 import { drawForPdLoad, lossAtPsePower } from './poe-loss';
-import type { CablePassiveCheck, CablePoeCheck, CableRunEvaluation, PlanWarning } from './result-types';
+import type {
+  CableAtClassPower, CableAtExpectedLoad, CablePassiveCheck, CablePoeCheck, CableRunEvaluation, PlanWarning,
+} from './result-types';
 
 /**
  * Cable-run rules.
@@ -50,133 +53,130 @@ export interface CableRunResult {
 
 const EPS = 1e-9;
 
+const CCA_MESSAGE = 'This run is copper-clad aluminium (CCA): not compliant for network cable and about 1.5 times the resistance of copper. Replace it with solid copper cable.';
+const THIN_GAUGE_MESSAGE = '26 AWG is patch-cord wire; fixed runs should be 22–24 AWG solid copper.';
+const NEC_MESSAGE = `This port puts out more than ${NEC_725_144_THRESHOLD_W} W: bundle sizes must be checked against NEC Table 725.144, or use LP-rated cable.`;
+const CAT6A_MESSAGE: Readonly<Record<CableCategory, string>> = {
+  cat5e: cat6aMessage('cat5e'), cat6: cat6aMessage('cat6'), cat6a: cat6aMessage('cat6a'),
+};
+function cat6aMessage(c: CableCategory): string {
+  return `High-power PoE (802.3bt) on ${CABLE_CATEGORY_NAMES[c]}: Cat 6A is recommended for new cable (TSB-184-A); keep this cable out of tight bundles.`;
+}
+
+/** A cable warning whose message is written when first read. */
+function cableWarning(code: string, severity: PlanWarning['severity'], deviceId: string, write: () => string): PlanWarning {
+  return deferredField<PlanWarning, 'message'>({ code, severity, deviceId, message: '' }, 'message', write);
+}
+
+/**
+ * The problem codes of the run being checked. Runs are checked one at a time, so the list is
+ * reused and each evaluation keeps an exact-size copy (a fresh list would grow to room for 17).
+ */
+const foundProblems: string[] = [];
+
+function addCaution(cautions: Caution[], c: Caution): void {
+  if (!cautions.includes(c)) cautions.push(c);
+}
+
 export function evaluateCableRun(run: CableRun, o: CableRunOptions): CableRunResult {
-  const reasons: string[] = [];
   const warnings: PlanWarning[] = [];
   const cautions: Caution[] = [];
-  const problems: string[] = [];
+  const evaluation = checkCableRun(run, o, warnings, cautions);
+  const reason = deliveredReason(evaluation, o.units);
+  return { evaluation, reasons: reason === null ? [] : [reason], warnings, cautions };
+}
+
+/**
+ * The checks of `evaluateCableRun`, adding the run's warnings and cautions (each caution once)
+ * to the caller's lists. Its reason, if any, is `deliveredReason(evaluation, units)`.
+ */
+export function checkCableRun(run: CableRun, o: CableRunOptions, warnings: PlanWarning[], cautions: Caution[]): CableRunEvaluation {
+  const problems = foundProblems;
+  problems.length = 0;
   const u = o.units;
   const deviceId = o.deviceId;
+  const lengthM = run.lengthM;
+  const category = run.category;
+  const cca = run.cca;
 
-  const gauge: AwgGauge = run.gauge ?? DEFAULT_GAUGE[run.category];
   const gaugeAssumed = run.gauge === undefined;
-  const channelM = run.lengthM + o.cordAllowanceM;
-  const ohmPerM = conductorOhmPerM(gauge, o.temperatureC, run.cca);
+  const gauge: AwgGauge = gaugeAssumed ? DEFAULT_GAUGE[category] : run.gauge!;
+  const channelM = lengthM + o.cordAllowanceM;
+  const ohmPerM = conductorOhmPerM(gauge, o.temperatureC, cca);
   const loopOhm = pairsetLoopOhm(ohmPerM, channelM);
-  const withinPermanentLink = run.lengthM <= CHANNEL_LIMITS.permanentLinkMaxM + EPS;
+  const withinPermanentLink = lengthM <= CHANNEL_LIMITS.permanentLinkMaxM + EPS;
   const withinChannel = channelM <= CHANNEL_LIMITS.channelMaxM + EPS;
-  const catName = CABLE_CATEGORY_NAMES[run.category];
 
   if (!withinChannel) {
     problems.push('channel_over_100m');
-    warnings.push({
-      code: 'channel_over_100m', severity: 'error', deviceId,
-      message: `The cable run is ${formatLength(run.lengthM, u)} (${formatLength(channelM, u)} with cords), longer than the ${formatLength(CHANNEL_LIMITS.channelMaxM, u)} a network cable may be. Put a small switch closer or find a shorter route.`,
-    });
+    warnings.push(cableWarning('channel_over_100m', 'error', deviceId, () =>
+      `The cable run is ${formatLength(lengthM, u)} (${formatLength(channelM, u)} with cords), longer than the ${formatLength(CHANNEL_LIMITS.channelMaxM, u)} a network cable may be. Put a small switch closer or find a shorter route.`));
   } else if (!withinPermanentLink) {
     problems.push('link_over_90m');
-    warnings.push({
-      code: 'link_over_90m', severity: 'warning', deviceId,
-      message: `The fixed cable is ${formatLength(run.lengthM, u)}, more than the ${formatLength(CHANNEL_LIMITS.permanentLinkMaxM, u)} the cabling standard allows for it; it works only with very short cords and should be tested after installation.`,
-    });
+    warnings.push(cableWarning('link_over_90m', 'warning', deviceId, () =>
+      `The fixed cable is ${formatLength(lengthM, u)}, more than the ${formatLength(CHANNEL_LIMITS.permanentLinkMaxM, u)} the cabling standard allows for it; it works only with very short cords and should be tested after installation.`));
   }
-  if (run.cca) {
+  if (cca) {
     problems.push('cca');
-    cautions.push(CAUTIONS.no_cca);
-    warnings.push({
-      code: 'cca_cable', severity: 'error', deviceId,
-      message: 'This run is copper-clad aluminium (CCA): not compliant for network cable and about 1.5 times the resistance of copper. Replace it with solid copper cable.',
-    });
+    addCaution(cautions, CAUTIONS.no_cca);
+    warnings.push({ code: 'cca_cable', severity: 'error', deviceId, message: CCA_MESSAGE });
   }
   if (gauge === 26) {
     problems.push('thin_gauge');
-    warnings.push({
-      code: 'thin_gauge', severity: 'warning', deviceId,
-      message: '26 AWG is patch-cord wire; fixed runs should be 22–24 AWG solid copper.',
-    });
+    warnings.push({ code: 'thin_gauge', severity: 'warning', deviceId, message: THIN_GAUGE_MESSAGE });
   }
-  if (o.outdoor) cautions.push(CAUTIONS.outdoor_runs);
+  if (o.outdoor) addCaution(cautions, CAUTIONS.outdoor_runs);
 
   let poe: CablePoeCheck | null = null;
   let passive: CablePassiveCheck | null = null;
   let ok = withinChannel;
 
-  if (o.poe) {
-    const spec = POE_TYPES[o.poe.poeType];
-    const cls = POE_CLASSES[o.poe.poeClass];
+  const want = o.poe;
+  if (want) {
+    const poeClass = want.poeClass;
+    const poeType = want.poeType;
+    const spec = POE_TYPES[poeType];
+    const cls = POE_CLASSES[poeClass];
     const pairs = cls.pairs;
     const v = spec.pseVoltageMinV;
-    const atClass = lossAtPsePower(cls.psePowerW, v, loopOhm, pairs);
-    const exp = drawForPdLoad(o.poe.pdLoadW, v, loopOhm, pairs);
-    const meetsClassPower = atClass.pdPowerW >= cls.pdMaxW - EPS;
-    const meetsMinVoltage = atClass.pdVoltageV >= spec.pdVoltageMinV - EPS;
-    const expMeetsV = exp.feasible && exp.pdVoltageV >= spec.pdVoltageMinV - EPS;
-    poe = {
-      poeClass: o.poe.poeClass,
-      poeType: o.poe.poeType,
-      pairs,
-      pseVoltageMinV: v,
-      pdVoltageMinV: spec.pdVoltageMinV,
-      atClassPower: {
-        psePowerW: cls.psePowerW,
-        currentA: roundTo(atClass.currentA, 4),
-        currentPerPairsetA: roundTo(atClass.currentPerPairsetA, 4),
-        currentPerConductorA: roundTo(atClass.currentPerPairsetA / 2, 4),
-        lossW: roundTo(atClass.lossW, 3),
-        pdPowerW: roundTo(atClass.pdPowerW, 3),
-        pdVoltageV: roundTo(atClass.pdVoltageV, 3),
-        meetsClassPower,
-        meetsMinVoltage,
-      },
-      atExpectedLoad: {
-        pdLoadW: roundTo(exp.pdLoadW, 3),
-        feasible: exp.feasible,
-        currentA: roundTo(exp.currentA, 4),
-        lossW: roundTo(exp.lossW, 3),
-        psePowerW: roundTo(exp.psePowerW, 3),
-        pdVoltageV: roundTo(exp.pdVoltageV, 3),
-        meetsMinVoltage: expMeetsV,
-      },
-    };
+    const pdVoltageMinV = spec.pdVoltageMinV;
+    const atClassPower = atClassPowerCheck(cls.psePowerW, cls.pdMaxW, v, pdVoltageMinV, loopOhm, pairs);
+    const atExpectedLoad = atExpectedLoadCheck(want.pdLoadW, v, pdVoltageMinV, loopOhm, pairs);
+    const meetsClassPower = atClassPower.meetsClassPower;
+    const meetsMinVoltage = atClassPower.meetsMinVoltage;
+    const expMeetsV = atExpectedLoad.meetsMinVoltage;
+    poe = { poeClass, poeType, pairs, pseVoltageMinV: v, pdVoltageMinV, atClassPower, atExpectedLoad };
     if (!meetsClassPower) problems.push('class_power_short');
     if (!meetsMinVoltage || !expMeetsV) problems.push('pd_voltage_low');
     ok = ok && meetsClassPower && meetsMinVoltage && expMeetsV;
 
-    if (meetsClassPower && meetsMinVoltage && expMeetsV) {
-      reasons.push(
-        `Over ${formatLength(channelM, u)} of ${catName} (loop resistance ${formatOhms(loopOhm)}), the cable loses at most ${formatWatts(atClass.lossW)}; the device still gets ${formatWatts(atClass.pdPowerW)} at ${formatVolts(atClass.pdVoltageV)} (it needs at least ${formatVolts(spec.pdVoltageMinV)}).`,
-      );
-    } else {
-      warnings.push({
-        code: 'cable_cannot_carry', severity: 'error', deviceId,
-        message: `This cable cannot guarantee Class ${o.poe.poeClass} power: at full load the device would get ${formatWatts(atClass.pdPowerW)} at ${formatVolts(atClass.pdVoltageV)} (it needs ${formatWatts(cls.pdMaxW)} and at least ${formatVolts(spec.pdVoltageMinV)}). A shorter run or thicker solid-copper cable fixes this.`,
-      });
+    if (!(meetsClassPower && meetsMinVoltage && expMeetsV)) {
+      warnings.push(cableWarning('cable_cannot_carry', 'error', deviceId, () => {
+        const atClass = lossAtPsePower(cls.psePowerW, v, loopOhm, pairs);
+        return `This cable cannot guarantee Class ${poeClass} power: at full load the device would get ${formatWatts(atClass.pdPowerW)} at ${formatVolts(atClass.pdVoltageV)} (it needs ${formatWatts(cls.pdMaxW)} and at least ${formatVolts(pdVoltageMinV)}). A shorter run or thicker solid-copper cable fixes this.`;
+      }));
     }
-    if (o.poe.poeType >= 3) {
-      cautions.push(CAUTIONS.bundling);
-      if (run.category !== TSB_184_A.newBuildCategory) {
-        warnings.push({
-          code: 'cat6a_recommended', severity: 'info', deviceId,
-          message: `High-power PoE (802.3bt) on ${catName}: Cat 6A is recommended for new cable (TSB-184-A); keep this cable out of tight bundles.`,
-        });
+    if (poeType >= 3) {
+      addCaution(cautions, CAUTIONS.bundling);
+      if (category !== TSB_184_A.newBuildCategory) {
+        warnings.push({ code: 'cat6a_recommended', severity: 'info', deviceId, message: CAT6A_MESSAGE[category] });
       }
     }
     if (cls.psePowerW > NEC_725_144_THRESHOLD_W) {
-      warnings.push({
-        code: 'nec_725_144', severity: 'info', deviceId,
-        message: `This port puts out more than ${NEC_725_144_THRESHOLD_W} W: bundle sizes must be checked against NEC Table 725.144, or use LP-rated cable.`,
-      });
+      warnings.push({ code: 'nec_725_144', severity: 'info', deviceId, message: NEC_MESSAGE });
     }
   }
 
-  if (o.passive) {
+  const pass = o.passive;
+  if (pass) {
     // Passive PoE is usually fed on the spare pairs only (one pairset). [MEMORY] pinout; I ≈ P / V.
-    const currentA = o.passive.loadW / o.passive.volts;
+    const volts = pass.volts;
+    const currentA = pass.loadW / volts;
     const dropV = currentA * loopOhm;
-    const deviceVolts = o.passive.volts - dropV;
-    const dropFraction = dropV / o.passive.volts;
+    const deviceVolts = volts - dropV;
+    const dropFraction = dropV / volts;
     passive = {
-      volts: o.passive.volts,
+      volts,
       currentA: roundTo(currentA, 4),
       dropV: roundTo(dropV, 3),
       deviceVolts: roundTo(deviceVolts, 3),
@@ -184,22 +184,20 @@ export function evaluateCableRun(run: CableRun, o: CableRunOptions): CableRunRes
     };
     if (dropFraction > PLANNING.passiveDropWarnFraction.value) {
       problems.push('passive_drop');
-      warnings.push({
-        code: 'passive_voltage_drop', severity: 'warning', deviceId,
-        message: `The cable drops about ${formatVolts(dropV)} of the ${formatVolts(o.passive.volts)} passive supply (${formatPercent(dropFraction)}); the device may reset under load. Check its allowed input range.`,
-      });
+      warnings.push(cableWarning('passive_voltage_drop', 'warning', deviceId, () =>
+        `The cable drops about ${formatVolts(dropV)} of the ${formatVolts(volts)} passive supply (${formatPercent(dropFraction)}); the device may reset under load. Check its allowed input range.`));
     }
   }
 
-  const evaluation: CableRunEvaluation = {
+  return {
     deviceId,
-    lengthM: run.lengthM,
+    lengthM,
     cordAllowanceM: o.cordAllowanceM,
     channelM: roundTo(channelM, 2),
-    category: run.category,
+    category,
     gauge,
     gaugeAssumed,
-    cca: run.cca,
+    cca,
     temperatureC: o.temperatureC,
     conductorOhmPerM: roundTo(ohmPerM, 6),
     loopOhm: roundTo(loopOhm, 4),
@@ -208,9 +206,56 @@ export function evaluateCableRun(run: CableRun, o: CableRunOptions): CableRunRes
     poe,
     passive,
     ok,
-    problems,
+    problems: problems.slice(),
   };
-  return { evaluation, reasons, warnings, cautions };
+}
+
+/** The run at full class power, with its checks (kept small so that the arithmetic's own objects are optimised away). */
+function atClassPowerCheck(
+  psePowerW: number, pdMaxW: number, pseVoltageV: number, pdVoltageMinV: number, loopOhm: number, pairs: 2 | 4,
+): CableAtClassPower {
+  const a = lossAtPsePower(psePowerW, pseVoltageV, loopOhm, pairs);
+  return {
+    psePowerW,
+    currentA: roundTo(a.currentA, 4),
+    currentPerPairsetA: roundTo(a.currentPerPairsetA, 4),
+    currentPerConductorA: roundTo(a.currentPerPairsetA / 2, 4),
+    lossW: roundTo(a.lossW, 3),
+    pdPowerW: roundTo(a.pdPowerW, 3),
+    pdVoltageV: roundTo(a.pdVoltageV, 3),
+    meetsClassPower: a.pdPowerW >= pdMaxW - EPS,
+    meetsMinVoltage: a.pdVoltageV >= pdVoltageMinV - EPS,
+  };
+}
+
+/** The run at the expected load, with its voltage check. */
+function atExpectedLoadCheck(pdLoadW: number, pseVoltageV: number, pdVoltageMinV: number, loopOhm: number, pairs: 2 | 4): CableAtExpectedLoad {
+  const e = drawForPdLoad(pdLoadW, pseVoltageV, loopOhm, pairs);
+  return {
+    pdLoadW: roundTo(e.pdLoadW, 3),
+    feasible: e.feasible,
+    currentA: roundTo(e.currentA, 4),
+    lossW: roundTo(e.lossW, 3),
+    psePowerW: roundTo(e.psePowerW, 3),
+    pdVoltageV: roundTo(e.pdVoltageV, 3),
+    meetsMinVoltage: e.feasible && e.pdVoltageV >= pdVoltageMinV - EPS,
+  };
+}
+
+/**
+ * The run's reason when PoE gets through ("Over 55 m of Cat 6 … the device still gets …"),
+ * else null. Worked out again from the run's own inputs, which the evaluation keeps unrounded.
+ */
+export function deliveredReason(c: CableRunEvaluation, u: UnitSystem): string | null {
+  const poe = c.poe;
+  if (poe === null || !(poe.atClassPower.meetsClassPower && poe.atClassPower.meetsMinVoltage && poe.atExpectedLoad.meetsMinVoltage)) {
+    return null;
+  }
+  const channelM = c.lengthM + c.cordAllowanceM;
+  const loopOhm = pairsetLoopOhm(conductorOhmPerM(c.gauge, c.temperatureC, c.cca), channelM);
+  const cls = POE_CLASSES[poe.poeClass];
+  const atClass = lossAtPsePower(cls.psePowerW, poe.pseVoltageMinV, loopOhm, cls.pairs);
+  return `Over ${formatLength(channelM, u)} of ${CABLE_CATEGORY_NAMES[c.category]} (loop resistance ${formatOhms(loopOhm)}), the cable loses at most ${formatWatts(atClass.lossW)}; the device still gets ${formatWatts(atClass.pdPowerW)} at ${formatVolts(atClass.pdVoltageV)} (it needs at least ${formatVolts(poe.pdVoltageMinV)}).`;
 }
 
 /** Gauge used for a run (captured, or the category default). */

@@ -5,8 +5,9 @@ import { CAUTIONS, SITE_CAUTION_IDS, type Caution } from '../standards/cautions'
 import { PLANNING } from '../standards/planning-defaults';
 import type { UnitSystem } from '../units';
 import { roundTo } from '../units';
-import type { PortAssignment } from './assign-ports';
+import type { PortAssignment, UnassignedDevice } from './assign-ports';
 import { evaluateBatteriesWith, type BatteryEvaluation, type OutageReport } from './battery';
+import { deferredField } from './deferred-text';
 import { buildPlanContext } from './plan-context';
 import { type DeviceEvaluation, type PlanWarning, type Recommendation, type Severity } from './result-types';
 import { evaluateSwitchWith, type SwitchEvaluation } from './switch-budget';
@@ -90,6 +91,14 @@ export interface SiteEvaluation {
   readonly cautions: readonly Caution[];
 }
 
+const UNASSIGNED_CODE: Readonly<Record<UnassignedDevice['code'], string>> = {
+  no_port_of_type: 'unassigned_no_port_of_type',
+  ports_full: 'unassigned_ports_full',
+  over_ceiling: 'unassigned_over_ceiling',
+  pinned_type_too_low: 'unassigned_pinned_type_too_low',
+  pinned_source_full: 'unassigned_pinned_source_full',
+};
+
 const CATEGORY_INDEX: Readonly<Record<CableCategory, number>> = { cat5e: 0, cat6: 1, cat6a: 2 };
 
 /** Order length for one drop: run + 10 % + 3 m service loop ([PRACTICE], common practice, no source). */
@@ -172,7 +181,9 @@ export function evaluateSite(site: Site, devices?: readonly DeviceEvaluation[]):
 
   for (const w of ctx.assignment.warnings) warnings.push(w);
   for (const u of ctx.assignment.unassigned) {
-    warnings.push({ code: `unassigned_${u.code}`, severity: 'error', deviceId: u.deviceId, message: `${ctx.deviceById.get(u.deviceId)!.name}: ${u.reason}` });
+    const name = ctx.deviceById.get(u.deviceId)!.name;
+    warnings.push(deferredField<PlanWarning, 'message'>(
+      { code: UNASSIGNED_CODE[u.code], severity: 'error', deviceId: u.deviceId, message: '' }, 'message', () => `${name}: ${u.reason}`));
   }
   for (const s of switches) for (const w of s.warnings) warnings.push(w);
   for (const b of batteryReport.batteries) for (const w of b.warnings) warnings.push(w);

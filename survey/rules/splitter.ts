@@ -1,4 +1,4 @@
-import { barrelSizeLabel } from '../standards/barrel-sizes';
+import { BARREL_SIZES, barrelSizeLabel } from '../standards/barrel-sizes';
 import { classForPdPower, POE_CLASSES, type PoeClass } from '../standards/poe-classes';
 import { PLANNING } from '../standards/planning-defaults';
 import type { PoeType } from '../standards/poe-types';
@@ -45,6 +45,26 @@ export function polarityText(p: Polarity): string {
 
 export function barrelPlug(outerMm: number, innerMm: number, polarity: Polarity): PlugSpec {
   return { kind: 'barrel', outerMm, innerMm, polarity, label: `${barrelSizeLabel({ outerMm, innerMm })}, ${POLARITY_TEXT[polarity]}` };
+}
+
+/** The plug of every known barrel size and polarity, written once (they are shared and frozen). */
+const KNOWN_BARREL_PLUGS: readonly { readonly outerMm: number; readonly innerMm: number; readonly byPolarity: Readonly<Record<Polarity, PlugSpec>> }[] =
+  BARREL_SIZES.map((b) => ({
+    outerMm: b.outerMm,
+    innerMm: b.innerMm,
+    byPolarity: {
+      centre_positive: Object.freeze(barrelPlug(b.outerMm, b.innerMm, 'centre_positive')),
+      centre_negative: Object.freeze(barrelPlug(b.outerMm, b.innerMm, 'centre_negative')),
+      unknown: Object.freeze(barrelPlug(b.outerMm, b.innerMm, 'unknown')),
+    },
+  }));
+
+/** Same as `barrelPlug`, but a known size gives its shared plug instead of a new one. */
+export function plugForBarrel(outerMm: number, innerMm: number, polarity: Polarity): PlugSpec {
+  for (const k of KNOWN_BARREL_PLUGS) {
+    if (k.outerMm === outerMm && k.innerMm === innerMm) return k.byPolarity[polarity];
+  }
+  return barrelPlug(outerMm, innerMm, polarity);
 }
 
 export const MICRO_USB_PLUG: PlugSpec = Object.freeze({ kind: 'micro_usb', label: 'micro-USB' });

@@ -3,6 +3,7 @@ import type { BudgetBasis, Site } from '../model/site';
 import { POE_TYPES, type PoeType } from '../standards/poe-types';
 import { formatPercent, formatWatts, roundTo } from '../units';
 import { sourceBudgetW } from './assign-ports';
+import { deferredField, deferredList } from './deferred-text';
 import { buildPlanContext, sourceOnBattery, type PlanContext } from './plan-context';
 import type { PlanWarning } from './result-types';
 
@@ -120,45 +121,46 @@ export function evaluateSwitchWith(ctx: PlanContext, src: PoeSource): SwitchEval
   const ownDrawW = src.kind === 'poe_switch' ? src.ownDrawW : 0;
   const wallDrawW = expectedW / efficiency + ownDrawW;
 
-  const reasons: string[] = [];
+  // The words are written when first read; the figures they quote are fixed by now.
   const warnings: PlanWarning[] = [];
-  const suggestions: string[] = [];
   const what = basis === 'class' ? 'sets aside' : 'is expected to draw';
-  reasons.push(`${rows.length} of ${ports} PoE ports used; the devices on it reserve ${formatWatts(roundTo(reservedW, 2))} by class and are expected to draw ${formatWatts(roundTo(expectedW, 2))} including cable loss, against a ${formatWatts(budgetW)} budget.`);
-  if (planningCeiling !== null) {
-    reasons.push(`We plan to keep it at or below ${formatPercent(planningCeiling)} of its budget (${formatWatts(roundTo(ceilingW, 2))}) — common practice, not a standard.`);
-  }
+  const portsUsed = rows.length;
+  const srcName = src.name;
+  const srcType = src.poeType;
+  const reasons = deferredList<string>((into) => {
+    into.push(`${portsUsed} of ${ports} PoE ports used; the devices on it reserve ${formatWatts(roundTo(reservedW, 2))} by class and are expected to draw ${formatWatts(roundTo(expectedW, 2))} including cable loss, against a ${formatWatts(budgetW)} budget.`);
+    if (planningCeiling !== null) {
+      into.push(`We plan to keep it at or below ${formatPercent(planningCeiling)} of its budget (${formatWatts(roundTo(ceilingW, 2))}) — common practice, not a standard.`);
+    }
+  });
   for (const r of rows) {
     if (r.poeType > src.poeType) {
-      warnings.push({
-        code: 'port_type_too_low', severity: 'error', sourceId: src.id, deviceId: r.deviceId,
-        message: `"${r.deviceName}" needs a ${typeText(r.poeType)} port, but "${src.name}" has ${typeText(src.poeType)} ports.`,
-      });
+      warnings.push(deferredField<PlanWarning, 'message'>(
+        { code: 'port_type_too_low', severity: 'error', sourceId: src.id, deviceId: r.deviceId, message: '' }, 'message', () =>
+          `"${r.deviceName}" needs a ${typeText(r.poeType)} port, but "${srcName}" has ${typeText(srcType)} ports.`));
     }
   }
   if (overBudget) {
-    const names = wouldShed.map((p) => `port ${p} (${rows.find((r) => r.port === p)!.deviceName})`).join(', ');
-    warnings.push({
-      code: 'over_budget', severity: 'error', sourceId: src.id,
-      message: `"${src.name}" ${what} ${formatWatts(roundTo(basisW, 2))}, over its ${formatWatts(budgetW)} budget: it would cut power to ${names} first.`,
-    });
+    warnings.push(deferredField<PlanWarning, 'message'>({ code: 'over_budget', severity: 'error', sourceId: src.id, message: '' }, 'message', () => {
+      const names = wouldShed.map((p) => `port ${p} (${rows.find((r) => r.port === p)!.deviceName})`).join(', ');
+      return `"${srcName}" ${what} ${formatWatts(roundTo(basisW, 2))}, over its ${formatWatts(budgetW)} budget: it would cut power to ${names} first.`;
+    }));
   } else if (overCeiling) {
-    warnings.push({
-      code: 'over_ceiling', severity: 'warning', sourceId: src.id,
-      message: `"${src.name}" ${what} ${formatWatts(roundTo(basisW, 2))}, above the ${formatPercent(planningCeiling ?? 1)} planning ceiling (${formatWatts(roundTo(ceilingW, 2))}) of its budget.`,
-    });
+    warnings.push(deferredField<PlanWarning, 'message'>({ code: 'over_ceiling', severity: 'warning', sourceId: src.id, message: '' }, 'message', () =>
+      `"${srcName}" ${what} ${formatWatts(roundTo(basisW, 2))}, above the ${formatPercent(planningCeiling ?? 1)} planning ceiling (${formatWatts(roundTo(ceilingW, 2))}) of its budget.`));
   }
-  if (overCeiling) {
+  const suggestions = deferredList<string>((into) => {
+    if (!overCeiling) return;
     const excess = basisW - ceilingW;
-    suggestions.push(`Move about ${formatWatts(roundTo(excess, 1))} of devices to another switch (the first to move: ${shed.slice(0, 2).map((r) => r.deviceName).join(', ')}).`);
+    into.push(`Move about ${formatWatts(roundTo(excess, 1))} of devices to another switch (the first to move: ${shed.slice(0, 2).map((r) => r.deviceName).join(', ')}).`);
     if (planningCeiling !== null) {
-      suggestions.push(`Or use a switch with a PoE budget of at least ${formatWatts(Math.ceil(basisW / planningCeiling))}.`);
+      into.push(`Or use a switch with a PoE budget of at least ${formatWatts(Math.ceil(basisW / planningCeiling))}.`);
     }
     const biggest = rows.reduce<PortRow | null>((m, r) => (m === null || r.reservedW > m.reservedW ? r : m), null);
     if (biggest !== null) {
-      suggestions.push(`Or power "${biggest.deviceName}" (Class ${biggest.poeClass}) from its own ${typeText(biggest.poeType)} injector.`);
+      into.push(`Or power "${biggest.deviceName}" (Class ${biggest.poeClass}) from its own ${typeText(biggest.poeType)} injector.`);
     }
-  }
+  });
 
   return {
     sourceId: src.id,

@@ -1,0 +1,157 @@
+import { createHash } from 'node:crypto';
+import { describe, expect, it } from 'vitest';
+import { demoSite, evaluateDevice, evaluateSite, type Site } from '../../survey/index';
+import { deferredField, deferredList } from '../../survey/rules/deferred-text';
+import { generateBenchSite } from '../bench/rules-bench';
+
+/**
+ * The rules write their sentences (reasons, warning messages, suggestions) only when they are
+ * first read. These tests pin that the words are the same as when they were written eagerly,
+ * that deferred lists and records behave like plain ones, and that nothing else changes.
+ */
+
+describe('deferred lists', () => {
+  it('write their items once, on first use, and then behave like plain arrays', () => {
+    let writes = 0;
+    const list = deferredList<string>((into) => {
+      writes++;
+      into.push('a', 'b');
+    });
+    expect(writes).toBe(0);
+    expect(list.length).toBe(2);
+    expect(writes).toBe(1);
+    expect(list[1]).toBe('b');
+    expect([...list]).toEqual(['a', 'b']);
+    expect(list.map((s) => s.toUpperCase())).toEqual(['A', 'B']);
+    expect(Array.isArray(list)).toBe(true);
+    expect(Object.keys(list)).toEqual(['0', '1']);
+    expect(JSON.stringify({ list })).toBe('{"list":["a","b"]}');
+    expect(list).toEqual(['a', 'b']);
+    expect(writes).toBe(1);
+  });
+
+  it('can be frozen before they are read', () => {
+    const list = Object.freeze(deferredList<string>((into) => into.push('a')));
+    expect([...list]).toEqual(['a']);
+    const record = Object.freeze(deferredField({ code: 'x', message: '' }, 'message', () => 'Words.'));
+    expect(record.message).toBe('Words.');
+  });
+
+  it('are written by JSON.stringify and by deep equality even when read first that way', () => {
+    const a = deferredList<number>((into) => into.push(1, 2, 3));
+    expect(JSON.stringify(a)).toBe('[1,2,3]');
+    const b = deferredList<number>((into) => into.push(1, 2, 3));
+    expect(b).toStrictEqual([1, 2, 3]);
+  });
+});
+
+describe('deferred fields', () => {
+  it('write the field on its first read only, keep the key order, and read like plain records', () => {
+    let writes = 0;
+    const w = deferredField({ code: 'x', severity: 'info', message: '', deviceId: 'd' }, 'message', () => {
+      writes++;
+      return 'Written.';
+    });
+    expect(w.code).toBe('x');
+    expect(w.severity).toBe('info');
+    expect(writes).toBe(0);
+    expect(w.message).toBe('Written.');
+    expect(w.message).toBe('Written.');
+    expect(Object.keys(w)).toEqual(['code', 'severity', 'message', 'deviceId']);
+    expect(writes).toBe(1);
+    expect(JSON.stringify(w)).toBe('{"code":"x","severity":"info","message":"Written.","deviceId":"d"}');
+    expect({ ...w }).toEqual({ code: 'x', severity: 'info', message: 'Written.', deviceId: 'd' });
+  });
+
+  it('are written by spread, JSON.stringify and deep equality', () => {
+    const make = () => deferredField({ code: 'x', message: '' }, 'message', () => 'Words.');
+    expect({ ...make() }).toEqual({ code: 'x', message: 'Words.' });
+    expect(JSON.parse(JSON.stringify(make()))).toEqual({ code: 'x', message: 'Words.' });
+    expect(make()).toStrictEqual({ code: 'x', message: 'Words.' });
+  });
+});
+
+function withSettings(site: Site, units: 'metric' | 'imperial', budgetBasis: 'class' | 'expected'): Site {
+  return { ...site, settings: { ...site.settings, units, budgetBasis } };
+}
+
+function jsonHash(x: unknown): string {
+  return createHash('sha256').update(JSON.stringify(x)).digest('hex').slice(0, 32);
+}
+
+describe('the evaluation reads the same with deferred words', () => {
+  // sha256 (first 32 hex digits) of JSON.stringify(evaluateSite(site)), recorded with the rules as
+  // they were before the words were deferred: every figure, key, reason, warning and caution, in order.
+  // After a deliberate change to the rules' figures or wording, record them again (and review why).
+  const RECORDED: Readonly<Record<string, string>> = {
+    'demo metric class': '4cde16411658aaf94e4aad296426e9af',
+    'demo metric expected': 'c8ba32690c64bf461594b02e211847dd',
+    'demo imperial class': '3c3e469f27f4355bf093edeecb5195dc',
+    'demo imperial expected': '268feae226dc24135f58827a56fe4622',
+    'generated-40 metric class': '14b33df538ddbdd9066bde142b2bb086',
+    'generated-40 metric expected': '53998322f10c851b5154cc039bf7ab29',
+    'generated-40 imperial class': 'f47ce0c2a4f1388fc1fca93bacd38f93',
+    'generated-40 imperial expected': '2fe197d1461c310e1c41f1ecf16b6629',
+    'generated-400 metric class': 'b658d402b3e9bedddfb60626d5e6abca',
+    'generated-400 metric expected': 'a31794abc1e83451b0f99116ff0d5afd',
+    'generated-400 imperial class': 'fdb3b7df6238467e96a21526a6d32527',
+    'generated-400 imperial expected': 'd34cab8940a45391120e1501917c0d8e',
+  };
+  const sites: Record<string, Site> = {
+    demo: demoSite,
+    'generated-40': generateBenchSite(40, 7),
+    'generated-400': generateBenchSite(400, 11),
+  };
+
+  for (const [name, site] of Object.entries(sites)) {
+    for (const units of ['metric', 'imperial'] as const) {
+      for (const basis of ['class', 'expected'] as const) {
+        const key = `${name} ${units} ${basis}`;
+        it(`${key}: the JSON text is the recorded one`, () => {
+          expect(jsonHash(evaluateSite(withSettings(site, units, basis)))).toBe(RECORDED[key]);
+        });
+      }
+    }
+  }
+
+  it('the words do not depend on what is read first', () => {
+    const site = withSettings(generateBenchSite(200, 3), 'imperial', 'class');
+    const a = evaluateSite(site);
+    const b = evaluateSite(site);
+    // a: messages first, then reasons; b: reasons first, then messages.
+    const messagesA = a.warnings.map((w) => w.message);
+    const reasonsA = a.devices.map((d) => [...d.reasons]);
+    const reasonsB = b.devices.map((d) => [...d.reasons]);
+    const messagesB = b.warnings.map((w) => w.message);
+    expect(reasonsA).toEqual(reasonsB);
+    expect(messagesA).toEqual(messagesB);
+    expect(JSON.stringify(a)).toBe(JSON.stringify(b));
+  });
+
+  it('the words of a result do not change when its input is edited afterwards', () => {
+    const site = structuredClone(withSettings(generateBenchSite(200, 5), 'metric', 'expected'));
+    const fresh = JSON.stringify(evaluateSite(structuredClone(site)));
+    const e = evaluateSite(site);
+    const devices = site.devices.map((d) => evaluateDevice(d, site));
+    const freshDevices = JSON.stringify(site.devices.map((d) => evaluateDevice(d, structuredClone(site))));
+    // Edit everything the words quote, in place, before any word is read.
+    const settings = site.settings as { units: string; nearOutletM: number; splitterEfficiency: number };
+    settings.units = 'imperial';
+    settings.nearOutletM = 9;
+    settings.splitterEfficiency = 0.5;
+    for (const d of site.devices as unknown as Record<string, unknown>[]) {
+      d.name = 'Edited';
+      d.mustStayUp = !d.mustStayUp;
+      d.outdoor = !d.outdoor;
+      d.outletDistanceM = 0.25;
+      const input = d.input as { volts?: number };
+      if (input.volts !== undefined) input.volts += 1;
+      const power = d.power as { watts?: number; amps?: number };
+      if (power.watts !== undefined) power.watts += 1;
+      if (power.amps !== undefined) power.amps += 1;
+    }
+    for (const s of site.powerSources as unknown as Record<string, unknown>[]) s.name = 'Edited source';
+    expect(JSON.stringify(e)).toBe(fresh);
+    expect(JSON.stringify(devices)).toBe(freshDevices);
+  });
+});

@@ -1,6 +1,9 @@
 import path from "node:path";
 import { defineConfig } from "vitest/config";
 
+// The object-store SDK prints a notice about its future Node versions in every worker; this project runs on Node 20.
+process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ??= "true";
+
 const root = path.resolve(import.meta.dirname, "..");
 const alias = { "@": root };
 

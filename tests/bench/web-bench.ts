@@ -57,7 +57,12 @@ function exportEmptyApp(): string {
   fs.writeFileSync(path.join(dir, "app", "_layout.tsx"), 'import { Stack } from "expo-router";\nexport default function Layout() { return <Stack />; }\n');
   fs.writeFileSync(path.join(dir, "app", "index.tsx"), 'import { Text } from "react-native";\nexport default function Home() { return <Text>Hello</Text>; }\n');
   const out = path.join(dir, "dist");
-  const result = spawnSync(path.join(projectRoot, "node_modules", ".bin", "expo"), ["export", "--platform", "web", "--output-dir", out], { cwd: dir, encoding: "utf8", env: { ...process.env, CI: "1", EXPO_NO_TELEMETRY: "1" } });
+  // Its own temporary folder, so its own bundler cache: Metro keys cached transforms by the real
+  // paths of the files, and node_modules here is ours, so a shared cache would hand this app our
+  // app's routes, or ours this app's ("No routes found").
+  const tmp = path.join(dir, "tmp");
+  fs.mkdirSync(tmp);
+  const result = spawnSync(path.join(projectRoot, "node_modules", ".bin", "expo"), ["export", "--platform", "web", "--output-dir", out], { cwd: dir, encoding: "utf8", env: { ...process.env, CI: "1", EXPO_NO_TELEMETRY: "1", TMPDIR: tmp } });
   if (result.status !== 0) throw new Error(`empty app export failed: ${(result.stderr || result.stdout).slice(-800)}`);
   return out;
 }

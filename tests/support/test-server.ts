@@ -24,9 +24,18 @@ export async function startTestServer({ seed = true, config: overrides = {}, reu
   // `reuse` restarts a server over an existing test database (its data must survive).
   const testDb = reuse ?? (await createTestDb());
   // A fixed free port, so the public origin (and every link in captured mail) is the real address.
-  const port = overrides.port ?? (await findFreePort(42_000, 8000));
-  const config = testConfig({ databaseUrl: testDb.url, port, publicOrigin: `http://127.0.0.1:${port}`, ...overrides });
-  const running = await startServer(config, { logger: pino({ level: "silent" }) });
+  // The port is free when chosen, but the stand-ins the server starts first (mail sink, payments,
+  // object store) listen on ports the system picks, which can be that one: then choose again.
+  let running: RunningServer | undefined;
+  for (let attempt = 1; !running; attempt++) {
+    const port = overrides.port ?? (await findFreePort(42_000, 8000));
+    const config = testConfig({ databaseUrl: testDb.url, port, publicOrigin: `http://127.0.0.1:${port}`, ...overrides });
+    try {
+      running = await startServer(config, { logger: pino({ level: "silent" }) });
+    } catch (err) {
+      if (overrides.port !== undefined || attempt >= 5 || !/already in use/.test(String(err))) throw err;
+    }
+  }
   if (seed) await seedDemoOnce(running.ctx.db);
   return {
     ...running,

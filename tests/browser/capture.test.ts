@@ -1,33 +1,23 @@
 import { eq } from "drizzle-orm";
-import type { Browser, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
+import { describe, expect, it } from "vitest";
 import { items, sites } from "../../db/schema";
-import { DESKTOP, PHONE, launchBrowser, screenshot, watchPage } from "../support/browser";
+import { DESKTOP, PHONE, screenshot, watchPage } from "../support/browser";
 import { signInThroughUi } from "../support/browser-auth";
-import { startTestServer, type TestServer } from "../support/test-server";
+import { serverAndBrowser } from "../support/browser-suite";
 
 /** A 1×1 PNG. */
 const TINY_PNG = "iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNk+M9QDwADhgGAWjR9awAAAABJRU5ErkJggg==";
 
-let server: TestServer;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startTestServer();
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const suite = serverAndBrowser();
 
 /** What the server holds now (the pill cannot tell a round that already ran from one still to come). */
 async function serverItemData(id: string) {
-  const [row] = await server.ctx.db.select({ data: items.data }).from(items).where(eq(items.id, id));
+  const [row] = await suite.server.ctx.db.select({ data: items.data }).from(items).where(eq(items.id, id));
   return row?.data as Record<string, unknown> | undefined;
 }
 async function serverSiteUnits(id: string) {
-  const [row] = await server.ctx.db.select({ settings: sites.settings }).from(sites).where(eq(sites.id, id));
+  const [row] = await suite.server.ctx.db.select({ settings: sites.settings }).from(sites).where(eq(sites.id, id));
   return (row?.settings as { units?: string } | undefined)?.units;
 }
 
@@ -48,7 +38,7 @@ async function openDemoWalk(page: Page, progress = /\d+ devices captured · (\d+
   await site.waitFor();
   if (shot) await screenshot(page, shot);
   await site.click();
-  await page.waitForURL(`${server.url}/sites/site_larchmere`);
+  await page.waitForURL(`${suite.server.url}/sites/site_larchmere`);
   await page.getByRole("region", { name: "Checklist" }).waitFor();
 }
 
@@ -67,10 +57,10 @@ async function openDemoSiteFromDesk(page: Page) {
 
 describe("capturing a walk on the phone", () => {
   it("adds a room from the list and two devices, fills one in, and sees the advice and the checklist change", async () => {
-    const context = await browser.newContext({ viewport: PHONE });
+    const context = await suite.browser.newContext({ viewport: PHONE });
     const page = await context.newPage();
     const watch = watchPage(page);
-    await signInThroughUi(page, server, "priya@lanternfield.test");
+    await signInThroughUi(page, suite.server, "priya@lanternfield.test");
     await openDemoWalk(page, /16 devices captured · 2 gaps/, "capture-walks-phone");
     await page.getByRole("link", { name: /^Sync: up to date/ }).waitFor();
     await expect.poll(() => checklistLines(page)).toEqual(["2 devices have only a typical power figure"]);
@@ -150,10 +140,10 @@ describe("capturing a walk on the phone", () => {
   });
 
   it("at desktop size shows the walk beside its checklist", async () => {
-    const context = await browser.newContext({ viewport: DESKTOP });
+    const context = await suite.browser.newContext({ viewport: DESKTOP });
     const page = await context.newPage();
     const watch = watchPage(page);
-    await signInThroughUi(page, server, "priya@lanternfield.test");
+    await signInThroughUi(page, suite.server, "priya@lanternfield.test");
     await openDemoWalk(page);
     const floors = (await page.getByRole("region", { name: "Ground floor" }).boundingBox())!;
     const checklist = (await page.getByRole("region", { name: "Checklist" }).boundingBox())!;
@@ -176,9 +166,9 @@ describe("capturing a walk on the phone", () => {
   });
 
   it("keeps changes on the phone while offline and says so, then sends them", async () => {
-    const context = await browser.newContext({ viewport: PHONE });
+    const context = await suite.browser.newContext({ viewport: PHONE });
     const page = await context.newPage();
-    await signInThroughUi(page, server, "priya@lanternfield.test");
+    await signInThroughUi(page, suite.server, "priya@lanternfield.test");
     await openDemoWalk(page);
     await page.getByRole("link", { name: /^Sync: up to date/ }).waitFor();
     await context.setOffline(true);
@@ -207,10 +197,10 @@ describe("capturing a walk on the phone", () => {
     await page.getByRole("heading", { name: "up to date" }).waitFor();
     await page.getByLabel(/^Last synced: (just now|\d+ min ago)$/).waitFor();
     // Someone else sees the room and its photo, now served by the API.
-    const other = await browser.newContext({ viewport: PHONE });
+    const other = await suite.browser.newContext({ viewport: PHONE });
     const op = await other.newPage();
     const watch = watchPage(op);
-    await signInThroughUi(op, server, "tomas@lanternfield.test");
+    await signInThroughUi(op, suite.server, "tomas@lanternfield.test");
     await openDemoSiteFromDesk(op);
     await op.getByRole("link", { name: /^Sewing room: 0 devices, no gaps/ }).click();
     const served = op.getByRole("img", { name: "Photo: Ceiling access" });
@@ -223,9 +213,9 @@ describe("capturing a walk on the phone", () => {
   });
 
   it("tells the person whose value was replaced, once, and lets them dismiss it", async () => {
-    const a = await browser.newContext({ viewport: PHONE });
+    const a = await suite.browser.newContext({ viewport: PHONE });
     const pa = await a.newPage();
-    await signInThroughUi(pa, server, "priya@lanternfield.test");
+    await signInThroughUi(pa, suite.server, "priya@lanternfield.test");
     await openDemoWalk(pa);
     await openDevice(pa, "Hall", "Hall smart-home hub");
     await pa.getByRole("link", { name: /^Sync: up to date/ }).waitFor();
@@ -236,10 +226,10 @@ describe("capturing a walk on the phone", () => {
     await pa.getByRole("link", { name: "Sync: saved on this phone, 1 change to send" }).waitFor();
 
     // …while the designer sets the same field from the office.
-    const b = await browser.newContext({ viewport: PHONE });
+    const b = await suite.browser.newContext({ viewport: PHONE });
     const pb = await b.newPage();
     const watch = watchPage(pb);
-    await signInThroughUi(pb, server, "tomas@lanternfield.test");
+    await signInThroughUi(pb, suite.server, "tomas@lanternfield.test");
     await openDemoSiteFromDesk(pb);
     await openDevice(pb, "Hall", "Hall smart-home hub");
     await pb.getByRole("link", { name: /^Sync: up to date/ }).waitFor();

@@ -2,40 +2,30 @@
 // hand with the budget chart following, prices and the CSV export. Screenshots in tests/artifacts/.
 import fs from "node:fs";
 import { parse } from "csv-parse/sync";
-import type { Browser, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
+import { describe, expect, it } from "vitest";
 import { DEMO_SITE_ID } from "../../db/seed";
-import { DESKTOP, PHONE, launchBrowser, screenshot, watchPage } from "../support/browser";
+import { DESKTOP, PHONE, screenshot, watchPage } from "../support/browser";
 import { signInThroughUi } from "../support/browser-auth";
-import { startTestServer, type TestServer } from "../support/test-server";
+import { serverAndBrowser } from "../support/browser-suite";
 
-let server: TestServer;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startTestServer();
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const suite = serverAndBrowser();
 
 /** Signs the designer in and opens the demo site's plan from the desk, as a person would (no reload mid-sync). */
 async function openPlanFromDesk(page: Page) {
-  await signInThroughUi(page, server, "tomas@lanternfield.test");
+  await signInThroughUi(page, suite.server, "tomas@lanternfield.test");
   await page.getByRole("button", { name: "Open the plan of The Okonkwo-Lindqvist house" }).click();
-  await page.waitForURL(`${server.url}/sites/${DEMO_SITE_ID}/plan`);
+  await page.waitForURL(`${suite.server.url}/sites/${DEMO_SITE_ID}/plan`);
 }
 
 const chartLabel = (page: Page, sourceId: string) => page.getByTestId(`budget-chart-${sourceId}`).first().getAttribute("aria-label");
 
 describe("the designer's desk", () => {
   it("lists the team's sites in a sortable, filterable table that opens a site's plan", async () => {
-    const context = await browser.newContext({ viewport: DESKTOP, deviceScaleFactor: 1 });
+    const context = await suite.browser.newContext({ viewport: DESKTOP, deviceScaleFactor: 1 });
     const page = await context.newPage();
     const watch = watchPage(page);
-    await signInThroughUi(page, server, "tomas@lanternfield.test");
+    await signInThroughUi(page, suite.server, "tomas@lanternfield.test");
     await page.getByRole("heading", { name: "Desk" }).waitFor();
     const table = page.getByRole("table", { name: "Sites" });
     await table.waitFor();
@@ -48,14 +38,14 @@ describe("the designer's desk", () => {
     await page.getByRole("textbox", { name: "Filter sites" }).fill("larchmere");
     await screenshot(page, "desk-sites-desktop");
     await page.getByRole("button", { name: "Open the plan of The Okonkwo-Lindqvist house" }).click();
-    await page.waitForURL(`${server.url}/sites/${DEMO_SITE_ID}/plan`);
+    await page.waitForURL(`${suite.server.url}/sites/${DEMO_SITE_ID}/plan`);
     await page.getByRole("tab", { name: "Devices" }).waitFor();
     expect(watch.problems).toEqual([]);
     await context.close();
   });
 
   it("overrides a device, moves a port by hand, and the budget chart follows; exports the materials", async () => {
-    const context = await browser.newContext({ viewport: DESKTOP, deviceScaleFactor: 1, acceptDownloads: true });
+    const context = await suite.browser.newContext({ viewport: DESKTOP, deviceScaleFactor: 1, acceptDownloads: true });
     const page = await context.newPage();
     const watch = watchPage(page);
     await openPlanFromDesk(page);
@@ -134,7 +124,7 @@ describe("the designer's desk", () => {
   });
 
   it("on a phone the plan is read-only", async () => {
-    const context = await browser.newContext({ viewport: PHONE, deviceScaleFactor: 1 });
+    const context = await suite.browser.newContext({ viewport: PHONE, deviceScaleFactor: 1 });
     const page = await context.newPage();
     const watch = watchPage(page);
     await openPlanFromDesk(page);

@@ -1,20 +1,9 @@
-import type { Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { PHONE, launchBrowser, screenshot, watchPage } from "../support/browser";
+import { describe, expect, it } from "vitest";
+import { PHONE, screenshot, watchPage } from "../support/browser";
 import { signInByLinkThroughUi, signInThroughUi } from "../support/browser-auth";
-import { startTestServer, type TestServer } from "../support/test-server";
+import { serverAndBrowser } from "../support/browser-suite";
 
-let server: TestServer;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startTestServer();
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const suite = serverAndBrowser();
 
 const ROLES = [
   { role: "admin", email: "imke@lanternfield.test", nav: ["Sites", "Team", "Account"] },
@@ -26,11 +15,11 @@ const ROLES = [
 describe("each demo role at phone size sees its own navigation", () => {
   for (const { role, email, nav } of ROLES) {
     it(`${role}: ${nav.join(" · ")}`, async () => {
-      const context = await browser.newContext({ viewport: PHONE });
+      const context = await suite.browser.newContext({ viewport: PHONE });
       const page = await context.newPage();
       const watch = watchPage(page);
-      if (role === "client") await signInByLinkThroughUi(page, server, email);
-      else await signInThroughUi(page, server, email);
+      if (role === "client") await signInByLinkThroughUi(page, suite.server, email);
+      else await signInThroughUi(page, suite.server, email);
       const links = await page.getByRole("navigation", { name: "Main" }).getByRole("link").allInnerTexts();
       expect(links.map((l) => l.trim())).toEqual(nav);
       await screenshot(page, `role-${role}-phone`);
@@ -40,9 +29,9 @@ describe("each demo role at phone size sees its own navigation", () => {
   }
 
   it("a wrong password is marked on the sign-in screen", async () => {
-    const context = await browser.newContext({ viewport: PHONE });
+    const context = await suite.browser.newContext({ viewport: PHONE });
     const page = await context.newPage();
-    await page.goto(`${server.url}/sign-in`, { waitUntil: "networkidle" });
+    await page.goto(`${suite.server.url}/sign-in`, { waitUntil: "networkidle" });
     await page.getByRole("textbox", { name: "E-mail" }).fill("tomas@lanternfield.test");
     await page.getByRole("textbox", { name: "Password" }).fill("definitely-wrong");
     await page.getByRole("button", { name: "Sign in" }).click();
@@ -57,9 +46,9 @@ describe("each demo role at phone size sees its own navigation", () => {
   });
 
   it("an admin invites a surveyor who joins through the link and lands signed in", async () => {
-    const context = await browser.newContext({ viewport: PHONE });
+    const context = await suite.browser.newContext({ viewport: PHONE });
     const page = await context.newPage();
-    await signInThroughUi(page, server, "imke@lanternfield.test");
+    await signInThroughUi(page, suite.server, "imke@lanternfield.test");
     await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Team" }).click();
     await page.getByRole("heading", { name: "Team" }).waitFor();
     await page.getByRole("textbox", { name: "E-mail" }).fill("wren@lanternfield.test");
@@ -68,7 +57,7 @@ describe("each demo role at phone size sees its own navigation", () => {
     await page.getByText("Invitation sent to wren@lanternfield.test").waitFor();
     const link = await page.getByText(/\/invite\//).first().innerText();
     await screenshot(page, "team-phone");
-    const joiner = await browser.newContext({ viewport: PHONE });
+    const joiner = await suite.browser.newContext({ viewport: PHONE });
     const jp = await joiner.newPage();
     await jp.goto(link.trim(), { waitUntil: "networkidle" });
     await jp.getByRole("heading", { name: "Join Lanternfield Low Voltage" }).waitFor();
@@ -78,7 +67,7 @@ describe("each demo role at phone size sees its own navigation", () => {
     await jp.getByRole("heading", { name: "Walks" }).waitFor();
     await joiner.close();
     // Someone else opening the same link later is told it was used.
-    const later = await browser.newContext({ viewport: PHONE });
+    const later = await suite.browser.newContext({ viewport: PHONE });
     const lp = await later.newPage();
     await lp.goto(link.trim(), { waitUntil: "networkidle" });
     await lp.getByText(/already used/).waitFor();

@@ -1,28 +1,17 @@
-import type { Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { DESKTOP, PHONE, launchBrowser, screenshot, watchPage } from "../support/browser";
+import { describe, expect, it } from "vitest";
+import { DESKTOP, PHONE, screenshot, watchPage } from "../support/browser";
 import { signInThroughUi } from "../support/browser-auth";
-import { startTestServer, type TestServer } from "../support/test-server";
+import { serverAndBrowser } from "../support/browser-suite";
 
-let server: TestServer;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startTestServer();
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const suite = serverAndBrowser();
 
 describe("the app shell", () => {
   it("sends a signed-out visitor to sign-in, rendered in the shipped font with nothing from other hosts", async () => {
-    const context = await browser.newContext({ viewport: PHONE });
+    const context = await suite.browser.newContext({ viewport: PHONE });
     const page = await context.newPage();
     const watch = watchPage(page);
-    await page.goto(`${server.url}/`, { waitUntil: "networkidle" });
-    await page.waitForURL(`${server.url}/sign-in`);
+    await page.goto(`${suite.server.url}/`, { waitUntil: "networkidle" });
+    await page.waitForURL(`${suite.server.url}/sign-in`);
     const heading = page.getByRole("heading", { name: "Sign in" });
     await heading.waitFor();
     const fontLoaded = await page.evaluate(async () => {
@@ -32,17 +21,17 @@ describe("the app shell", () => {
     expect(fontLoaded).toBe(true);
     expect(await heading.evaluate((el) => getComputedStyle(el).fontFamily)).toContain("NunitoSans");
     expect(await page.evaluate(() => globalThis.crossOriginIsolated)).toBe(true);
-    expect(watch.requests.filter((u) => !u.startsWith(server.url))).toEqual([]);
+    expect(watch.requests.filter((u) => !u.startsWith(suite.server.url))).toEqual([]);
     expect(watch.problems).toEqual([]);
     await screenshot(page, "sign-in-phone");
     await context.close();
   });
 
   it("at phone size shows a bottom navigation", async () => {
-    const context = await browser.newContext({ viewport: PHONE });
+    const context = await suite.browser.newContext({ viewport: PHONE });
     const page = await context.newPage();
     const watch = watchPage(page);
-    await signInThroughUi(page, server, "priya@lanternfield.test");
+    await signInThroughUi(page, suite.server, "priya@lanternfield.test");
     await page.getByRole("heading", { name: "Walks" }).waitFor();
     await page.getByText("Okonkwo-Lindqvist house").waitFor();
     const box = (await page.getByRole("navigation", { name: "Main" }).boundingBox())!;
@@ -54,10 +43,10 @@ describe("the app shell", () => {
   });
 
   it("at desktop size shows a side navigation and wider content", async () => {
-    const context = await browser.newContext({ viewport: DESKTOP });
+    const context = await suite.browser.newContext({ viewport: DESKTOP });
     const page = await context.newPage();
     const watch = watchPage(page);
-    await signInThroughUi(page, server, "tomas@lanternfield.test");
+    await signInThroughUi(page, suite.server, "tomas@lanternfield.test");
     await page.getByRole("heading", { name: "Desk" }).waitFor();
     const box = (await page.getByRole("navigation", { name: "Main" }).boundingBox())!;
     expect(box.x).toBeLessThan(2);
@@ -73,10 +62,10 @@ describe("the app shell", () => {
   });
 
   it("shows a not-found page for unknown paths", async () => {
-    const context = await browser.newContext({ viewport: PHONE });
+    const context = await suite.browser.newContext({ viewport: PHONE });
     const page = await context.newPage();
     const watch = watchPage(page);
-    await page.goto(`${server.url}/no/such/place`, { waitUntil: "networkidle" });
+    await page.goto(`${suite.server.url}/no/such/place`, { waitUntil: "networkidle" });
     await page.getByText("This page is not on the plan").waitFor();
     expect(watch.problems).toEqual([]);
     await context.close();

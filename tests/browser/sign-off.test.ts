@@ -1,38 +1,27 @@
-import type { Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { DEMO_PASSWORD } from "../../db/demo-accounts";
 import { DEMO_SITE_ID } from "../../db/seed";
 import { signInWithPassword } from "../support/auth-client";
-import { DESKTOP, PHONE, launchBrowser, screenshot, watchPage } from "../support/browser";
+import { DESKTOP, PHONE, screenshot, watchPage } from "../support/browser";
 import { signInThroughUi } from "../support/browser-auth";
 import { waitForMail } from "../support/mail";
-import { startTestServer, type TestServer } from "../support/test-server";
+import { serverAndBrowser } from "../support/browser-suite";
 
-let server: TestServer;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startTestServer();
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const suite = serverAndBrowser();
 
 describe("the homeowner signs off on a phone", () => {
   it("opens the e-mailed link, reads the summary, comments on one item, signs; the desk shows signed", async () => {
-    const designer = await signInWithPassword(server.url, "tomas@lanternfield.test", DEMO_PASSWORD);
+    const designer = await signInWithPassword(suite.server.url, "tomas@lanternfield.test", DEMO_PASSWORD);
     const since = new Date();
     await designer.post(`/api/sites/${DEMO_SITE_ID}/reports`).send({}).expect(201);
-    const mail = await waitForMail(server.ctx.db, "june@okonkwo-lindqvist.test", since);
+    const mail = await waitForMail(suite.server.ctx.db, "june@okonkwo-lindqvist.test", since);
     const link = mail.links.find((l) => l.includes("/auth/callback/nodemailer"))!;
 
-    const context = await browser.newContext({ viewport: PHONE });
+    const context = await suite.browser.newContext({ viewport: PHONE });
     const page = await context.newPage();
     const watch = watchPage(page);
     await page.goto(link, { waitUntil: "networkidle" });
-    await page.waitForURL(`${server.url}/sites/${DEMO_SITE_ID}/report`);
+    await page.waitForURL(`${suite.server.url}/sites/${DEMO_SITE_ID}/report`);
     await page.getByRole("heading", { name: "What this plan does" }).waitFor();
     await screenshot(page, "scope-phone");
 
@@ -54,9 +43,9 @@ describe("the homeowner signs off on a phone", () => {
     expect(watch.problems).toEqual([]);
     await context.close();
 
-    const desk = await browser.newContext({ viewport: DESKTOP });
+    const desk = await suite.browser.newContext({ viewport: DESKTOP });
     const dp = await desk.newPage();
-    await signInThroughUi(dp, server, "tomas@lanternfield.test");
+    await signInThroughUi(dp, suite.server, "tomas@lanternfield.test");
     await dp.getByText("signed", { exact: true }).first().waitFor();
     await screenshot(dp, "desk-signed-desktop");
     await desk.close();

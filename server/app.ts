@@ -1,8 +1,6 @@
-import { randomUUID } from "node:crypto";
 import { ExpressAuth } from "@auth/express";
 import express from "express";
 import { rateLimit } from "express-rate-limit";
-import { pinoHttp } from "pino-http";
 import { loadActor } from "./auth/actor";
 import { createAuthConfig } from "./auth/auth-config";
 import { pinHost } from "./auth/host-pin";
@@ -10,6 +8,7 @@ import type { AppContext } from "./context";
 import { HttpError, apiNotFound, errorHandler } from "./errors";
 import { securityHeaders } from "./middleware/security-headers";
 import { rejectNulCharacters } from "./middleware/reject-nul";
+import { requestLog } from "./middleware/request-log";
 import { sameOriginWrites } from "./middleware/same-origin-writes";
 import { healthRouter } from "./routes/health";
 import { invitesRouter } from "./routes/invites";
@@ -26,7 +25,6 @@ import { sitesRouter } from "./routes/sites";
 import { syncRouter } from "./routes/sync";
 import { teamRouter } from "./routes/team";
 import { requireSignedIn } from "./auth/actor";
-import { httpLogSerializers } from "./logger";
 import { webRouter } from "./web";
 
 function limiter(limit: number, message: string) {
@@ -41,6 +39,12 @@ function limiter(limit: number, message: string) {
   });
 }
 
+/** API answers carry one member's data: no cache (browser or proxy) may keep them. */
+const privateResponses: express.RequestHandler = (_req, res, next) => {
+  res.setHeader("Cache-Control", "no-store");
+  next();
+};
+
 /** Builds the Express app; `listen` lives in server/index.ts so tests drive this same app. */
 export function createApp(ctx: AppContext) {
   const { config } = ctx;
@@ -48,20 +52,13 @@ export function createApp(ctx: AppContext) {
   app.disable("x-powered-by");
   app.set("trust proxy", 1);
 
-  app.use(
-    pinoHttp({
-      logger: ctx.logger,
-      genReqId: (req, res) => {
-        const incoming = req.headers["x-request-id"];
-        const id = typeof incoming === "string" && /^[\w-]{8,64}$/.test(incoming) ? incoming : randomUUID();
-        res.setHeader("X-Request-Id", id);
-        return id;
-      },
-      autoLogging: { ignore: (req) => !req.url?.startsWith("/api") },
-      wrapSerializers: false,
-      serializers: httpLogSerializers,
-    }),
-  );
+  // API bodies are private and sent with no-store, so an ETag (a hash of every body) buys nothing;
+  // the web build's files keep theirs (express.static and sendFile set their own).
+  app.set("etag", false);
+  // The error handler logs failures here, with the request's id.
+  app.locals.logger = ctx.logger;
+
+  app.use(requestLog(ctx.logger, (url) => url.startsWith("/api")));
   app.use(securityHeaders(config.publicOrigin));
   app.use(pinHost(config.publicOrigin));
 
@@ -97,6 +94,7 @@ export function createApp(ctx: AppContext) {
   memberApi.use(reportsRouter(ctx));
 
   const api = express.Router();
+  api.use(privateResponses);
   api.use(express.json({ limit: "4mb" }));
   api.use(rejectNulCharacters);
   api.use(sameOriginWrites(config.publicOrigin));

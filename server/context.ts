@@ -1,5 +1,6 @@
 import type { Db } from "../db/client";
 import type { ServerConfig } from "./config";
+import type { MemberDirectory } from "./auth/member-directory";
 import type { Logger } from "./logger";
 import type { Mailer } from "./mail/mailer";
 import type { Payments } from "./payments/payments";
@@ -14,4 +15,6 @@ export interface AppContext {
   objects: ObjectStore;
   /** Deposits; absent when no provider is configured (tests that drive the app directly). */
   payments?: Payments;
+  /** Memberships remembered between requests (a running server); without it every request reads them. */
+  members?: MemberDirectory;
 }

@@ -2,6 +2,7 @@ import type { ErrorRequestHandler, RequestHandler } from "express";
 import * as v from "valibot";
 
 import { check, type FieldErrors } from "../survey/validation";
+import type { Logger } from "./logger";
 
 export type { FieldErrors };
 
@@ -56,7 +57,7 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   } else {
     body = { code: "internal", message: "Something went wrong on our side. Nothing you saved was lost; try again." };
   }
-  if (status >= 500) req.log?.error({ err }, "request failed");
+  if (status >= 500) (req.app?.locals.logger as Logger | undefined)?.error({ err, reqId: req.id }, "request failed");
   if (res.headersSent) return;
   res.status(status).json({ error: body });
 };

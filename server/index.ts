@@ -2,6 +2,8 @@ import type { Server } from "node:http";
 import { createDb } from "../db/client";
 import { runMigrations } from "../db/migrate";
 import { createApp } from "./app";
+import { membershipLookup } from "./auth/auth-config";
+import { startMemberDirectory } from "./auth/member-directory";
 import type { ServerConfig } from "./config";
 import type { AppContext } from "./context";
 import { createLogger, type Logger } from "./logger";
@@ -41,7 +43,8 @@ export async function startServer(config: ServerConfig, { logger = createLogger(
   const payments = fakePayments
     ? createPayments({ secretKey: fakePayments.secretKey, webhookSecret: fakePayments.webhookSecret, apiOrigin: fakePayments.origin })
     : createPayments({ secretKey: config.payments.secretKey!, webhookSecret: config.payments.webhookSecret ?? "", apiOrigin: config.payments.apiOrigin });
-  const ctx: AppContext = { db, config, logger, mailer, objects, payments };
+  const members = await startMemberDirectory({ connectionString: config.databaseUrl, lookup: membershipLookup(db), logger });
+  const ctx: AppContext = { db, config, logger, mailer, objects, payments, members };
   const app = createApp(ctx);
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(config.port, config.host);
@@ -52,6 +55,7 @@ export async function startServer(config: ServerConfig, { logger = createLogger(
       } else reject(err);
     });
   }).catch(async (err) => {
+    await members.close();
     await sink?.close();
     await localObjects?.close();
     await fakePayments?.close();
@@ -77,6 +81,7 @@ export async function startServer(config: ServerConfig, { logger = createLogger(
         .then(() => sink?.close())
         .then(() => localObjects?.close())
         .then(() => fakePayments?.close())
+        .then(() => members.close())
         .then(() => db.$client.end());
       return closing;
     },

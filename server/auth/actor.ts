@@ -1,4 +1,3 @@
-import { getToken } from "@auth/core/jwt";
 import type { ExpressAuthConfig } from "@auth/express";
 import type { RequestHandler } from "express";
 import type { Actor, Role, TeamAction } from "../../survey/policy";
@@ -6,7 +5,8 @@ import { decideTeam } from "../../survey/policy";
 import type { AppContext } from "../context";
 import { HttpError } from "../errors";
 import { membershipLookup } from "./auth-config";
-import { cachedSessionDecode } from "./session-cache";
+import { uncachedMembers } from "./member-directory";
+import { sessionReader } from "./session-cache";
 
 export interface SignedInActor extends Actor {
   name: string | null;
@@ -27,21 +27,22 @@ const SESSION_COOKIE = /(?:^|;\s*)(?:__Secure-)?authjs\.session-token(?:\.\d+)?=
 
 /**
  * Reads the Auth.js session (when there is a session cookie) and the member's current team role.
- * The session is Auth.js's encrypted JWT; decoding it with Auth.js's own `getToken` and `decode`
- * checks it the same way its session endpoint does, without running the whole Auth.js request
- * pipeline per call; a cookie already opened by this process is not decrypted again until it expires.
+ * The session is Auth.js's encrypted JWT; reading it with Auth.js's own `getToken` checks it the
+ * same way its session endpoint does, without running the whole Auth.js request pipeline per call;
+ * a Cookie header already opened by this process is not opened again until its token expires.
  */
 export function loadActor(ctx: AppContext, authConfig: ExpressAuthConfig): RequestHandler {
-  const secureCookie = Boolean(authConfig.useSecureCookies);
-  const decode = cachedSessionDecode();
-  const findMembership = membershipLookup(ctx.db);
+  const readSession = sessionReader({ secret: ctx.config.authSecret, secureCookie: Boolean(authConfig.useSecureCookies) });
+  const members = ctx.members ?? uncachedMembers(membershipLookup(ctx.db));
   return async (req, res, next) => {
-    if (!SESSION_COOKIE.test(req.headers.cookie ?? "")) return next();
-    const token = await getToken({ req: { headers: { cookie: req.headers.cookie ?? "" } }, secret: ctx.config.authSecret, secureCookie, decode }).catch(() => null);
+    const cookie = req.headers.cookie;
+    if (cookie === undefined || !SESSION_COOKIE.test(cookie)) return next();
+    const token = await readSession(cookie);
     const userId = typeof token?.uid === "string" ? token.uid : token?.sub;
     if (!userId) return next();
-    // Roles are read fresh on every request, so a changed role or a removal takes effect at once.
-    const member = await findMembership(userId);
+    // A changed role or a removal takes effect at once: the member directory forgets a member as
+    // soon as the database says their membership changed (or reads every request fresh).
+    const member = await members.find(userId);
     if (member) res.locals.actor = { userId: member.userId, teamId: member.teamId, role: member.role, name: member.name, email: member.email };
     else res.locals.actor = undefined;
     next();

@@ -1,29 +1,45 @@
-import { decode, type JWT, type JWTDecodeParams } from "@auth/core/jwt";
+import { getToken, type JWT } from "@auth/core/jwt";
 import { LRUCache } from "lru-cache";
 
+export interface SessionReaderOptions {
+  secret: string;
+  /** Sessions travel in `__Secure-` cookies (behind https). */
+  secureCookie: boolean;
+  maxEntries?: number;
+  /** Longest an opened session is remembered, even if the token itself lives longer. */
+  maxAgeMs?: number;
+  /** Memory the remembered Cookie headers may take, counted in characters. */
+  maxChars?: number;
+}
+
 /**
- * Auth.js's own JWT decode with a bounded memory of tokens already opened.
+ * Reads the Auth.js session from a request's Cookie header with Auth.js's own `getToken`, and
+ * remembers what a header opened to.
  *
- * A session cookie is an encrypted, authenticated token: the same cookie string always opens to the
+ * A session cookie is an encrypted, authenticated token: the same Cookie header always opens to the
  * same claims, so opening it once per process is enough. Each entry lives until the token's own
- * expiry (never longer than `maxAgeMs`), so an expired session is refused exactly as before. Who the
- * member is and what they may do is still read from the database on every request (see actor.ts),
- * so a changed role or a removal takes effect at once. Nothing here is shared between servers: each
- * instance decodes a cookie the first time it sees it.
+ * expiry (never longer than `maxAgeMs`), so an expired session is refused exactly as before; headers
+ * that do not open are never remembered. Who the member is and what they may do is still read from
+ * the database on every request (see actor.ts), so a changed role or a removal takes effect at
+ * once. Nothing here is shared between servers: each instance opens a cookie the first time it sees it.
  */
-export function cachedSessionDecode(options: { maxEntries?: number; maxAgeMs?: number } = {}) {
+export function sessionReader(options: SessionReaderOptions) {
+  const { secret, secureCookie } = options;
   const maxAgeMs = options.maxAgeMs ?? 5 * 60_000;
-  const opened = new LRUCache<string, { claims: JWT; expiresAt: number }>({ max: options.maxEntries ?? 10_000 });
-  return async function decodeSession(params: JWTDecodeParams): Promise<JWT | null> {
-    const key = `${params.salt}\u0000${params.token ?? ""}`;
-    const hit = opened.get(key);
+  const opened = new LRUCache<string, { claims: JWT; expiresAt: number }>({
+    max: options.maxEntries ?? 10_000,
+    maxSize: options.maxChars ?? 16_000_000,
+    sizeCalculation: (_value, key) => key.length + 500,
+  });
+  return async function readSession(cookieHeader: string): Promise<JWT | null> {
+    const hit = opened.get(cookieHeader);
     if (hit && hit.expiresAt > Date.now()) return hit.claims;
-    if (hit) opened.delete(key);
-    const claims = await decode(params);
+    if (hit) opened.delete(cookieHeader);
+    const claims = await getToken({ req: { headers: { cookie: cookieHeader } }, secret, secureCookie }).catch(() => null);
     if (!claims) return null;
     const tokenExpiry = typeof claims.exp === "number" ? claims.exp * 1000 : Date.now();
     const expiresAt = Math.min(tokenExpiry, Date.now() + maxAgeMs);
-    if (expiresAt > Date.now()) opened.set(key, { claims, expiresAt });
+    if (expiresAt > Date.now()) opened.set(cookieHeader, { claims, expiresAt });
     return claims;
   };
 }

@@ -26,7 +26,8 @@ export function sessionRouter({ db }: AppContext) {
   return router;
 }
 
-export function meRouter({ db }: AppContext) {
+export function meRouter(ctx: AppContext) {
+  const { db } = ctx;
   const router = Router();
 
   router.get("/me", async (_req, res) => {
@@ -37,6 +38,7 @@ export function meRouter({ db }: AppContext) {
     const actor = actorOf(res);
     const input = parseInput(UpdateMeSchema, req.body);
     await db.update(users).set({ name: input.name }).where(eq(users.id, actor.userId));
+    ctx.members?.forget(actor.userId);
     res.json({ user: { id: actor.userId, name: input.name, email: actor.email } });
   });
 

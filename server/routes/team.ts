@@ -97,6 +97,7 @@ export function teamRouter(ctx: AppContext) {
     await memberOfTeam(actor.teamId, param(req, "userId"));
     if (role !== "admin") await assertNotLastAdmin(actor.teamId, param(req, "userId"));
     await db.update(memberships).set({ role }).where(and(eq(memberships.teamId, actor.teamId), eq(memberships.userId, param(req, "userId"))));
+    ctx.members?.forget(param(req, "userId"));
     res.json({ member: { id: param(req, "userId"), role } });
   });
 
@@ -106,6 +107,7 @@ export function teamRouter(ctx: AppContext) {
     await assertNotLastAdmin(actor.teamId, param(req, "userId"));
     // Their captured work stays with the sites; only the membership goes.
     await db.delete(memberships).where(and(eq(memberships.teamId, actor.teamId), eq(memberships.userId, param(req, "userId"))));
+    ctx.members?.forget(param(req, "userId"));
     res.status(204).end();
   });
 

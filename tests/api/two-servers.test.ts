@@ -71,6 +71,17 @@ describe("two servers, one database", () => {
     expect(back.body.items.find((i: { id: string }) => i.id === roomId).data).toMatchObject({ name: "Wine cellar", notes: "Cool and dry" });
   });
 
+  it("a role changed through one server holds on the other as soon as the database's notice arrives", async () => {
+    const admin = await signInWithPassword(a.url, "imke@lanternfield.test", DEMO_PASSWORD);
+    const onB = await signInWithPassword(b.url, "tomas@lanternfield.test", DEMO_PASSWORD);
+    expect((await onB.get("/api/me").expect(200)).body.role).toBe("designer"); // B now remembers Tomas
+    const tomas = (await admin.get("/api/team/members").expect(200)).body.members.find((m: { email: string }) => m.email === "tomas@lanternfield.test");
+    await admin.patch(`/api/team/members/${tomas.id}`).send({ role: "surveyor" }).expect(200);
+    await expect.poll(async () => (await onB.get("/api/me")).body.role, { timeout: 2000, interval: 20 }).toBe("surveyor");
+    await admin.delete(`/api/team/members/${tomas.id}`).expect(204);
+    await expect.poll(async () => (await onB.get("/api/sites")).status, { timeout: 2000, interval: 20 }).toBe(401);
+  });
+
   it("a photo uploaded through one server is served by the other", async () => {
     const onA = await signInWithPassword(a.url, "priya@lanternfield.test", DEMO_PASSWORD);
     const onB = await signInWithPassword(b.url, "priya@lanternfield.test", DEMO_PASSWORD);

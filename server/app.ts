@@ -70,28 +70,22 @@ export function createApp(ctx: AppContext) {
   // Signed webhooks need the raw body: before the JSON parser.
   app.use(paymentsWebhookRouter(ctx));
 
+  // Each route file adds its routes to one flat router per kind of caller (its function's second
+  // argument), so a request is matched against routes rather than entering a router per file.
   // Public API: no session needed.
   const publicApi = express.Router();
-  publicApi.use(healthRouter(ctx));
-  publicApi.use(sessionRouter(ctx));
+  healthRouter(ctx, publicApi);
+  sessionRouter(ctx, publicApi);
   // Only the invitation routes are limited here (guessing tokens); the rest of the API is not.
   publicApi.use("/invites", limiter(config.authRateLimit * 3, "Too many attempts with invitation links. Wait 15 minutes and try again."));
-  publicApi.use(invitesRouter(ctx));
+  invitesRouter(ctx, publicApi);
 
   // Everything else needs a signed-in member; each route then asks survey/policy.ts.
   const memberApi = express.Router();
   memberApi.use(requireSignedIn);
-  memberApi.use(meRouter(ctx));
-  memberApi.use(sitesRouter(ctx));
-  memberApi.use(teamRouter(ctx));
-  memberApi.use(outboxRouter(ctx));
-  memberApi.use(syncRouter(ctx));
-  memberApi.use(photosRouter(ctx));
-  memberApi.use(rulesRouter(ctx));
-  memberApi.use(planRouter(ctx));
-  memberApi.use(closetRouter(ctx));
-  memberApi.use(deskRouter(ctx));
-  memberApi.use(reportsRouter(ctx));
+  for (const addRoutes of [meRouter, sitesRouter, teamRouter, outboxRouter, syncRouter, photosRouter, rulesRouter, planRouter, closetRouter, deskRouter, reportsRouter]) {
+    addRoutes(ctx, memberApi);
+  }
 
   const api = express.Router();
   api.use(privateResponses);

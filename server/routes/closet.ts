@@ -7,9 +7,8 @@ import { buildPlanView, loadPlanData } from "../services/plan";
 import { siteFor } from "../services/site-access";
 
 /** The closet of a site: PoE switches, injectors, outlets and battery backups, edited at the desk. */
-export function closetRouter(ctx: AppContext) {
+export function closetRouter(ctx: AppContext, router: Router = Router()) {
   const { db } = ctx;
-  const router = Router();
   const collections: [string, ClosetKind, string][] = [
     ["sources", "source", "sourceId"],
     ["batteries", "battery", "batteryId"],

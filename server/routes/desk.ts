@@ -6,9 +6,8 @@ import { actorOf, requireTeam } from "../auth/actor";
 import type { AppContext } from "../context";
 
 /** The desk's table of sites: every site of the team, with its people, status, checklist and last sync. */
-export function deskRouter(ctx: AppContext) {
+export function deskRouter(ctx: AppContext, router: Router = Router()) {
   const { db } = ctx;
-  const router = Router();
 
   router.get("/desk/sites", requireTeam("desk:read"), async (_req, res) => {
     const actor = actorOf(res);

@@ -2,8 +2,7 @@ import { sql } from "drizzle-orm";
 import { Router } from "express";
 import type { AppContext } from "../context";
 
-export function healthRouter({ db, config }: AppContext) {
-  const router = Router();
+export function healthRouter({ db, config }: AppContext, router: Router = Router()) {
   router.get("/health", async (_req, res) => {
     let dbOk = false;
     try {

@@ -9,8 +9,7 @@ import { HttpError, param, parseInput } from "../errors";
 import { hashInviteToken } from "../services/invite-tokens";
 
 /** Public: someone holding an invitation link reads it and accepts it. */
-export function invitesRouter({ db }: AppContext) {
-  const router = Router();
+export function invitesRouter({ db }: AppContext, router: Router = Router()) {
 
   async function usableInvite(token: string) {
     const [invite] = await db

@@ -18,17 +18,15 @@ async function describe(db: AppContext["db"], actor: SignedInActor) {
 }
 
 /** Public: who is signed in, or null. The app asks this at start without provoking a 401. */
-export function sessionRouter({ db }: AppContext) {
-  const router = Router();
+export function sessionRouter({ db }: AppContext, router: Router = Router()) {
   router.get("/session", async (_req, res) => {
     res.json({ session: res.locals.actor ? await describe(db, res.locals.actor) : null });
   });
   return router;
 }
 
-export function meRouter(ctx: AppContext) {
+export function meRouter(ctx: AppContext, router: Router = Router()) {
   const { db } = ctx;
-  const router = Router();
 
   router.get("/me", async (_req, res) => {
     res.json(await describe(db, actorOf(res)));

@@ -6,8 +6,7 @@ import type { AppContext } from "../context";
 import { HttpError } from "../errors";
 
 /** Development only: the messages the local SMTP sink captured, for admins. */
-export function outboxRouter({ db, config }: AppContext) {
-  const router = Router();
+export function outboxRouter({ db, config }: AppContext, router: Router = Router()) {
   router.get("/outbox", requireTeam("mail:read-outbox"), async (_req, res) => {
     if (!config.mailSink) throw new HttpError(404, "no_outbox", "There is no local outbox: mail goes to the configured SMTP provider.");
     const mail = await db

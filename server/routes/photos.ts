@@ -16,8 +16,7 @@ const PhotoFieldsSchema = v.object({
   label: v.optional(v.pipe(v.string(), v.maxLength(120, "Keep the label under 120 characters.")), ""),
 });
 
-export function photosRouter({ db, objects, config }: AppContext) {
-  const router = Router();
+export function photosRouter({ db, objects, config }: AppContext, router: Router = Router()) {
   const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: config.maxPhotoBytes, files: 1, fields: 10, fieldSize: 1024 } });
   const receive: RequestHandler = (req, res, next) =>
     upload.single("file")(req, res, (err: unknown) => {

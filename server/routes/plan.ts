@@ -22,9 +22,8 @@ function fileName(name: string) {
 }
 
 /** A site's plan for the designer's desk: the evaluation, decisions, port assignment, prices and materials. */
-export function planRouter(ctx: AppContext) {
+export function planRouter(ctx: AppContext, router: Router = Router()) {
   const { db } = ctx;
-  const router = Router();
   const planOf = async (siteId: string, actor: ReturnType<typeof actorOf>) => {
     const site = await siteFor(db, actor, siteId, "site:plan");
     return buildPlanView(await loadPlanData(db, site));

@@ -30,9 +30,8 @@ const DepositSettingsSchema = v.object({
   currency: v.optional(v.pipe(v.string(), v.regex(/^[a-z]{3}$/, "Use a three-letter currency code such as usd.")), "usd"),
 });
 
-export function reportsRouter(ctx: AppContext) {
+export function reportsRouter(ctx: AppContext, router: Router = Router()) {
   const { db } = ctx;
-  const router = Router();
 
   router.post("/sites/:siteId/reports", async (req, res) => {
     const actor = actorOf(res);

@@ -5,8 +5,7 @@ import type { AppContext } from "../context";
 import { HttpError } from "../errors";
 
 /** The same rules the phone runs, for any site in the documented JSON (see DEVELOPERS.md). */
-export function rulesRouter(_ctx: AppContext) {
-  const router = Router();
+export function rulesRouter(_ctx: AppContext, router: Router = Router()) {
   router.post("/rules/evaluate", requireTeam("rules:evaluate"), (req, res) => {
     const parsed = parseSite(req.body);
     if (!parsed.ok) {

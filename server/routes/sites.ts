@@ -23,9 +23,8 @@ export function siteView(site: SiteWithAccess) {
   };
 }
 
-export function sitesRouter(ctx: AppContext) {
+export function sitesRouter(ctx: AppContext, router: Router = Router()) {
   const { db } = ctx;
-  const router = Router();
   const sitesOfTeam = teamSitesQuery(db);
 
   router.get("/sites", async (_req, res) => {

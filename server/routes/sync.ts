@@ -6,8 +6,7 @@ import { parseInput } from "../errors";
 import { pullChanges } from "../services/sync-pull";
 import { pushChanges } from "../services/sync-push";
 
-export function syncRouter({ db }: AppContext) {
-  const router = Router();
+export function syncRouter({ db }: AppContext, router: Router = Router()) {
 
   router.post("/sync/push", async (req, res) => {
     const actor = actorOf(res);

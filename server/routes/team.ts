@@ -9,9 +9,8 @@ import { HttpError, notFound, param, parseInput } from "../errors";
 import { mailFailed } from "../mail/mailer";
 import { INVITE_DAYS, newInviteToken } from "../services/invite-tokens";
 
-export function teamRouter(ctx: AppContext) {
+export function teamRouter(ctx: AppContext, router: Router = Router()) {
   const { db, config, mailer } = ctx;
-  const router = Router();
 
   router.get("/team/members", requireTeam("team:read-members"), async (_req, res) => {
     const actor = actorOf(res);

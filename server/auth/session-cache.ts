@@ -19,9 +19,10 @@ export interface SessionReaderOptions {
  * A session cookie is an encrypted, authenticated token: the same Cookie header always opens to the
  * same claims, so opening it once per process is enough. Each entry lives until the token's own
  * expiry (never longer than `maxAgeMs`), so an expired session is refused exactly as before; headers
- * that do not open are never remembered. Who the member is and what they may do is still read from
- * the database on every request (see actor.ts), so a changed role or a removal takes effect at
- * once. Nothing here is shared between servers: each instance opens a cookie the first time it sees it.
+ * that do not open are never remembered. The session only says which user this is; their team and
+ * role come from the member directory on every request (member-directory.ts), which forgets a member
+ * as soon as their membership changes. Nothing here is shared between servers: each instance opens a
+ * cookie the first time it sees it.
  */
 export function sessionReader(options: SessionReaderOptions) {
   const { secret, secureCookie } = options;

@@ -52,8 +52,9 @@ export function createApp(ctx: AppContext) {
   app.disable("x-powered-by");
   app.set("trust proxy", 1);
 
-  // API bodies are private and sent with no-store, so an ETag (a hash of every body) buys nothing;
-  // the web build's files keep theirs (express.static and sendFile set their own).
+  // API bodies are private and sent with no-store, so an ETag (a hash of every body) buys nothing.
+  // The web build's files keep validators: express.static its ETags and Last-Modified, the app
+  // shell its Last-Modified, the service worker an ETag of its own (server/web.ts).
   app.set("etag", false);
   // The error handler logs failures here, with the request's id.
   app.locals.logger = ctx.logger;

@@ -43,11 +43,15 @@ export async function startServer(config: ServerConfig, { logger = createLogger(
   const payments = fakePayments
     ? createPayments({ secretKey: fakePayments.secretKey, webhookSecret: fakePayments.webhookSecret, apiOrigin: fakePayments.origin })
     : createPayments({ secretKey: config.payments.secretKey!, webhookSecret: config.payments.webhookSecret ?? "", apiOrigin: config.payments.apiOrigin });
-  const members = await startMemberDirectory({ connectionString: config.databaseUrl, lookup: membershipLookup(db), logger });
+  const members = await startMemberDirectory({ connectionString: config.databaseUrl, pool: db.$client, lookup: membershipLookup(db), logger });
+  /** Everything started above, closed whatever fails: the stand-ins and the member directory, then the pool. */
+  const closeServices = async () => {
+    await Promise.allSettled([members.close(), sink?.close(), localObjects?.close(), fakePayments?.close()]);
+    await db.$client.end();
+  };
   const ctx: AppContext = { db, config, logger, mailer, objects, payments, members };
-  const app = createApp(ctx);
   const server = await new Promise<Server>((resolve, reject) => {
-    const s = app.listen(config.port, config.host);
+    const s = createApp(ctx).listen(config.port, config.host);
     s.once("listening", () => resolve(s));
     s.once("error", (err: NodeJS.ErrnoException) => {
       if (err.code === "EADDRINUSE") {
@@ -55,11 +59,7 @@ export async function startServer(config: ServerConfig, { logger = createLogger(
       } else reject(err);
     });
   }).catch(async (err) => {
-    await members.close();
-    await sink?.close();
-    await localObjects?.close();
-    await fakePayments?.close();
-    await db.$client.end();
+    await closeServices();
     throw err;
   });
   const address = server.address();
@@ -73,16 +73,11 @@ export async function startServer(config: ServerConfig, { logger = createLogger(
     ctx,
     sink,
     close() {
-      // Stop accepting, let in-flight requests finish, then close the mail sink and the pool.
+      // Stop accepting, let in-flight requests finish, then close the services and the pool.
       closing ??= new Promise<void>((resolve) => {
         server.close(() => resolve());
         server.closeIdleConnections();
-      })
-        .then(() => sink?.close())
-        .then(() => localObjects?.close())
-        .then(() => fakePayments?.close())
-        .then(() => members.close())
-        .then(() => db.$client.end());
+      }).then(closeServices);
       return closing;
     },
   };

@@ -1,3 +1,4 @@
+import { createHash } from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
 import express, { Router } from "express";
@@ -8,10 +9,14 @@ export function webRouter(distDir: string) {
   const router = Router();
   const indexFile = path.join(distDir, "index.html");
   router.get("/sw.js", (_req, res) => {
+    const script = serviceWorkerScript(distDir);
     res.setHeader("Content-Type", "text/javascript; charset=utf-8");
     res.setHeader("Cache-Control", "no-cache");
     res.setHeader("Service-Worker-Allowed", "/");
-    res.send(serviceWorkerScript(distDir));
+    // The app makes no ETags of its own (its API answers are no-store), so the script carries one:
+    // a browser checking for a new service worker gets a 304 while the build is the same.
+    res.setHeader("ETag", `"${createHash("sha256").update(script).digest("base64url").slice(0, 27)}"`);
+    res.send(script);
   });
   router.use(
     express.static(distDir, {
@@ -31,6 +36,7 @@ export function webRouter(distDir: string) {
       return;
     }
     res.setHeader("Cache-Control", "no-cache");
+    // Revalidated by its Last-Modified (sendFile follows the app's ETag setting, which is off).
     res.sendFile(indexFile);
   });
   return router;

@@ -102,8 +102,9 @@ export function createAuthConfig(ctx: AppContext, mailer: Mailer): ExpressAuthCo
 }
 
 /**
- * The member's current team and role, read fresh on every signed-in request. A prepared statement
- * (planned once per connection by Postgres, built once by Drizzle), since every API call runs it.
+ * The member's current team and role, as the database has them now: what the member directory
+ * (member-directory.ts) reads when it does not remember a member, and on every request while it
+ * cannot. A prepared statement (planned once per connection by Postgres, built once by Drizzle).
  */
 export function membershipLookup(db: AppContext["db"]) {
   const query = db

@@ -1,3 +1,4 @@
+import { randomUUID } from "node:crypto";
 import pg from "pg";
 import type { Role } from "../../survey/policy";
 import type { Logger } from "../logger";
@@ -15,6 +16,8 @@ export interface MemberDirectory {
   find(userId: string): Promise<Member | undefined>;
   /** Read this user again on their next request (this server changed their membership). */
   forget(userId: string): void;
+  /** Members are being remembered (the database's change notices are arriving). */
+  readonly isListening: boolean;
   close(): Promise<void>;
 }
 
@@ -22,10 +25,12 @@ export type MemberLookup = (userId: string) => Promise<Member | undefined>;
 
 /** Every request reads the database: for apps built without a running server (tests, scripts). */
 export function uncachedMembers(lookup: MemberLookup): MemberDirectory {
-  return { find: lookup, forget: () => {}, close: async () => {} };
+  return { find: lookup, forget: () => {}, isListening: false, close: async () => {} };
 }
 
 export const MEMBER_CHANNEL = "member_changed";
+/** Payloads a server sends itself to prove its notices still arrive (user ids never start so). */
+const HEARTBEAT_PREFIX = "heartbeat:";
 
 /**
  * Memberships remembered between requests, for as long as the database can tell us when they change.
@@ -57,8 +62,8 @@ export class MemberCache implements MemberDirectory {
     const readAt = Date.now();
     const member = await this.lookup(userId);
     if (member !== undefined && this.listening && generation === this.generation) {
-      if (this.entries.size >= this.options.maxEntries) this.entries.delete(this.entries.keys().next().value!);
       this.entries.delete(userId);
+      if (this.entries.size >= this.options.maxEntries) this.entries.delete(this.entries.keys().next().value!);
       this.entries.set(userId, { member, readAt });
     }
     return member;
@@ -69,8 +74,9 @@ export class MemberCache implements MemberDirectory {
     this.entries.delete(userId);
   }
 
-  /** A notice from the database: one user id, or "*" for everyone. */
+  /** A notice from the database: one user id, or "*" for everyone (heartbeats are not notices of change). */
   changed(payload: string): void {
+    if (payload.startsWith(HEARTBEAT_PREFIX)) return;
     if (payload === "*") this.forgetAll();
     else this.forget(payload);
   }
@@ -99,39 +105,74 @@ export interface MemberDirectoryOptions {
   connectionString: string;
   lookup: MemberLookup;
   logger: Logger;
+  /** The app's pool: heartbeats go out through it, the way any change would arrive. */
+  pool: pg.Pool;
   maxAgeMs?: number;
   maxEntries?: number;
+  /** How often a heartbeat is sent, and how long it may take to come back before the connection counts as lost. */
+  heartbeatMs?: number;
+  heartbeatTimeoutMs?: number;
 }
 
 /**
  * A member cache fed by a dedicated connection that LISTENs on `member_changed`. When that
  * connection drops, the cache empties and stops remembering, then the connection is retried
- * (1 s, doubling to 30 s) and remembering resumes once listening again.
+ * (1 s, doubling to 30 s) and remembering resumes once listening again. A connection can also die
+ * without saying so (a dropped network path, a proxy that swallows notices), so every
+ * `heartbeatMs` the server sends itself a heartbeat notice; one that has not come back within
+ * `heartbeatTimeoutMs` counts as a lost connection.
  */
-export async function startMemberDirectory(options: MemberDirectoryOptions): Promise<MemberDirectory & { readonly isListening: boolean }> {
+export async function startMemberDirectory(options: MemberDirectoryOptions): Promise<MemberDirectory> {
   const cache = new MemberCache(options.lookup, { maxAgeMs: options.maxAgeMs ?? 60_000, maxEntries: options.maxEntries ?? 10_000 });
   let client: pg.Client | undefined;
   let closed = false;
   let retryMs = 1000;
   let retryTimer: NodeJS.Timeout | undefined;
 
+  const heartbeatMs = options.heartbeatMs ?? 10_000;
+  const heartbeatTimeoutMs = options.heartbeatTimeoutMs ?? 5_000;
+  let heartbeatTimer: NodeJS.Timeout | undefined;
+  let wasLost = false;
+
   const connect = async () => {
-    const c = new pg.Client({ connectionString: options.connectionString, application_name: "dropwise-member-changes" });
+    const c = new pg.Client({ connectionString: options.connectionString, application_name: "dropwise-member-changes", keepAlive: true });
+    let awaited: { payload: string; timer: NodeJS.Timeout } | undefined;
+    const stopHeartbeat = () => {
+      if (heartbeatTimer) clearInterval(heartbeatTimer);
+      heartbeatTimer = undefined;
+      if (awaited) clearTimeout(awaited.timer);
+      awaited = undefined;
+    };
     const lost = (err?: Error) => {
       if (client !== c) return;
       client = undefined;
+      stopHeartbeat();
       cache.setListening(false);
       c.removeAllListeners("notification");
       c.end().catch(() => {});
       if (closed) return;
+      wasLost = true;
       options.logger.warn({ err: err?.message }, "member change notices lost; reading members fresh until they resume");
       retryTimer = setTimeout(reconnect, retryMs);
       retryMs = Math.min(retryMs * 2, 30_000);
     };
+    const heartbeat = () => {
+      if (awaited) return;
+      const payload = `${HEARTBEAT_PREFIX}${randomUUID()}`;
+      awaited = { payload, timer: setTimeout(() => lost(new Error(`no heartbeat notice back within ${heartbeatTimeoutMs} ms`)), heartbeatTimeoutMs) };
+      awaited.timer.unref();
+      // A database that cannot be reached shows up as the heartbeat not coming back.
+      options.pool.query("select pg_notify($1, $2)", [MEMBER_CHANNEL, payload]).catch(() => {});
+    };
     c.on("error", lost);
     c.on("end", () => lost());
     c.on("notification", (n) => {
-      if (n.channel === MEMBER_CHANNEL) cache.changed(n.payload ?? "*");
+      if (n.channel !== MEMBER_CHANNEL) return;
+      if (awaited && n.payload === awaited.payload) {
+        clearTimeout(awaited.timer);
+        awaited = undefined;
+      }
+      cache.changed(n.payload ?? "*");
     });
     client = c;
     try {
@@ -144,6 +185,10 @@ export async function startMemberDirectory(options: MemberDirectoryOptions): Pro
     if (client !== c || closed) return;
     retryMs = 1000;
     cache.setListening(true);
+    heartbeatTimer = setInterval(heartbeat, heartbeatMs);
+    heartbeatTimer.unref();
+    if (wasLost) options.logger.info("member change notices resumed");
+    wasLost = false;
   };
   const reconnect = () => {
     retryTimer = undefined;
@@ -160,6 +205,7 @@ export async function startMemberDirectory(options: MemberDirectoryOptions): Pro
     async close() {
       closed = true;
       if (retryTimer) clearTimeout(retryTimer);
+      if (heartbeatTimer) clearInterval(heartbeatTimer);
       await cache.close();
       const c = client;
       client = undefined;

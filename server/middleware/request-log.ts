@@ -1,6 +1,6 @@
 import { randomUUID } from "node:crypto";
-import type { IncomingMessage, ServerResponse } from "node:http";
-import type { RequestHandler } from "express";
+import type { IncomingMessage } from "node:http";
+import type { Request, RequestHandler, Response } from "express";
 import type { Logger } from "../logger";
 
 declare module "node:http" {
@@ -19,8 +19,8 @@ function requestId(req: IncomingMessage): string {
 
 /**
  * Gives every request an id (echoed in X-Request-Id) and writes one log line per API request when
- * its response is finished: method, address, status and time taken. No cookies or other headers
- * are logged. No per-request child logger is made (that was the largest single cost of an API read,
+ * its response is finished: method, address, status, time taken, the client's address and who
+ * was signed in. No cookies or other headers are logged, and invitation tokens are masked. No per-request child logger is made (that was the largest single cost of an API read,
  * measured with `npm run bench`): a line about a request carries its `reqId` instead.
  */
 export function requestLog(logger: Logger, shouldLog: (url: string) => boolean): RequestHandler {
@@ -41,15 +41,22 @@ export function requestLog(logger: Logger, shouldLog: (url: string) => boolean):
   };
 }
 
-function logFinished(logger: Logger, req: IncomingMessage, res: ServerResponse, id: string, url: string, ms: number) {
+/** Invitation tokens are secrets (stored only hashed): the log keeps where they were used, not them. */
+function withoutSecrets(url: string): string {
+  return url.replace(/(\/invites\/)[^/?#]+/, "$1…");
+}
+
+function logFinished(logger: Logger, req: Request, res: Response, id: string, url: string, ms: number) {
   const finished = res.writableFinished;
   const line = {
     reqId: id,
     method: req.method,
-    url,
+    url: withoutSecrets(url),
     status: res.headersSent ? res.statusCode : null,
     ms: Math.round(ms * 10) / 10,
-    remoteAddress: req.socket?.remoteAddress,
+    // The client's address as the trusted proxy reports it (Express's req.ip), and who was signed in.
+    ip: req.ip,
+    userId: res.locals.actor?.userId,
   };
   if (!finished) logger.warn(line, "request closed before its response was sent");
   else if (res.statusCode >= 500) logger.error(line, "request completed");

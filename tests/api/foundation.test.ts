@@ -1,3 +1,6 @@
+import fs from "node:fs";
+import os from "node:os";
+import path from "node:path";
 import express from "express";
 import request from "supertest";
 import * as v from "valibot";
@@ -91,6 +94,35 @@ describe("the web app", () => {
     expect([200, 503]).toContain(res.status); // 503 only when no build exists yet
     expect(res.headers["cross-origin-embedder-policy"]).toBe("require-corp");
     if (res.status === 200) expect(res.text).toContain("<div id=\"root\"");
+  });
+});
+
+describe("caching of answers", () => {
+  it("API answers are no-store and carry no ETag; the app shell, its files and the service worker keep validators", async () => {
+    const dist = fs.mkdtempSync(path.join(os.tmpdir(), "dropwise-dist-"));
+    fs.writeFileSync(path.join(dist, "index.html"), '<!doctype html><div id="root"></div>');
+    fs.mkdirSync(path.join(dist, "_expo"));
+    fs.writeFileSync(path.join(dist, "_expo", "entry-abc123.js"), "console.log(1);");
+    const web = createApp(testContext(testDb.db, { webDist: dist }));
+
+    const api = await request(web).get("/api/health").expect(200);
+    expect(api.headers["cache-control"]).toBe("no-store");
+    expect(api.headers.etag).toBeUndefined();
+
+    const shell = await request(web).get("/walks").expect(200);
+    expect(shell.headers["last-modified"]).toBeTruthy();
+    await request(web).get("/walks").set("If-Modified-Since", shell.headers["last-modified"]).expect(304);
+
+    const bundle = await request(web).get("/_expo/entry-abc123.js").expect(200);
+    expect(bundle.headers.etag).toBeTruthy();
+    await request(web).get("/_expo/entry-abc123.js").set("If-None-Match", bundle.headers.etag).expect(304);
+
+    const sw = await request(web).get("/sw.js").expect(200);
+    expect(sw.headers.etag).toMatch(/^"[\w-]{27}"$/);
+    await request(web).get("/sw.js").set("If-None-Match", sw.headers.etag).expect(304);
+    fs.writeFileSync(path.join(dist, "_expo", "entry-def456.js"), "console.log(2);"); // a new build: a new script
+    const next = await request(web).get("/sw.js").set("If-None-Match", sw.headers.etag).expect(200);
+    expect(next.headers.etag).not.toBe(sw.headers.etag);
   });
 });
 

@@ -72,6 +72,8 @@ describe("two servers, one database", () => {
   });
 
   it("a role changed through one server holds on the other as soon as the database's notice arrives", async () => {
+    // Both remember members (they listen for the database's notices), so B must hear of A's change.
+    expect(a.ctx.members?.isListening && b.ctx.members?.isListening).toBe(true);
     const admin = await signInWithPassword(a.url, "imke@lanternfield.test", DEMO_PASSWORD);
     const onB = await signInWithPassword(b.url, "tomas@lanternfield.test", DEMO_PASSWORD);
     expect((await onB.get("/api/me").expect(200)).body.role).toBe("designer"); // B now remembers Tomas

@@ -52,6 +52,33 @@ describe("member cache", () => {
     expect(lookup).toHaveBeenCalledTimes(2);
   });
 
+  it("does not keep a read that began before listening started, or that this server forgot on the way", async () => {
+    const releases: ((m: Member) => void)[] = [];
+    const lookup = vi.fn((_userId: string) => new Promise<Member | undefined>((resolve) => releases.push(resolve)));
+    const cache = new MemberCache(lookup, { maxAgeMs: 60_000, maxEntries: 10 });
+    const early = cache.find("user_priya"); // notices not yet arriving: a change now would go unseen
+    cache.setListening(true);
+    releases.shift()!(priya);
+    await early;
+    const again = cache.find("user_priya");
+    cache.forget("user_priya"); // this server changed Priya's role meanwhile
+    releases.shift()!(priya);
+    await again;
+    const third = cache.find("user_priya");
+    releases.shift()!({ ...priya, role: "designer" });
+    expect((await third)?.role).toBe("designer");
+    expect(lookup).toHaveBeenCalledTimes(3);
+  });
+
+  it("ignores its own heartbeats", async () => {
+    const { lookup, cache } = counted();
+    cache.setListening(true);
+    await cache.find("user_priya");
+    cache.changed("heartbeat:0f8e");
+    await cache.find("user_priya");
+    expect(lookup).toHaveBeenCalledTimes(1);
+  });
+
   it("forgets everything and reads fresh once notices stop", async () => {
     const { lookup, cache } = counted();
     cache.setListening(true);

@@ -21,6 +21,12 @@ function appWithLog() {
   app.locals.logger = logger;
   app.use(requestLog(logger, (url) => url.startsWith("/api")));
   app.get("/api/ok", (_req, res) => void res.json({ ok: true }));
+  app.get("/api/signed", (_req, res) => {
+    res.locals.actor = { userId: "user_priya", teamId: "team_1", role: "surveyor", name: "Priya", email: "priya@lanternfield.test" };
+    res.json({ ok: true });
+  });
+  app.get("/api/invites/:token", (_req, res) => void res.json({ ok: true }));
+  app.get("/api/hangs", () => {}); // never answers: the caller gives up
   app.get("/api/refused", () => {
     throw new HttpError(403, "forbidden", "No.");
   });
@@ -44,6 +50,33 @@ describe("request log", () => {
     expect(lines[0]).toMatchObject({ level: 30, reqId: "trace-abcdef12", method: "GET", url: "/api/ok?x=1", status: 200, msg: "request completed" });
     expect(typeof lines[0].ms).toBe("number");
     expect(JSON.stringify(lines)).not.toContain("secret-value");
+  });
+
+  it("names who was signed in, and never writes an invitation token", async () => {
+    const { app, lines } = appWithLog();
+    await request(app).get("/api/signed").expect(200);
+    await request(app).get("/api/invites/7f3c9a1b2d4e5f60718293a4b5c6d7e8").expect(200);
+    await settle();
+    expect(lines[0]).toMatchObject({ url: "/api/signed", userId: "user_priya" });
+    expect(typeof lines[0].ip).toBe("string");
+    expect(lines[1]).toMatchObject({ url: "/api/invites/…" });
+    expect(lines[1].userId).toBeUndefined();
+    expect(JSON.stringify(lines)).not.toContain("7f3c9a1b2d4e5f60718293a4b5c6d7e8");
+  });
+
+  it("writes a warning when the caller goes away before the answer", async () => {
+    const { app, lines } = appWithLog();
+    const server = app.listen(0, "127.0.0.1");
+    await new Promise((r) => server.once("listening", r));
+    const { port } = server.address() as { port: number };
+    const controller = new AbortController();
+    const pending = fetch(`http://127.0.0.1:${port}/api/hangs`, { signal: controller.signal }).catch(() => null);
+    await new Promise((r) => setTimeout(r, 50));
+    controller.abort();
+    await pending;
+    await new Promise((r) => setTimeout(r, 50));
+    server.close();
+    expect(lines).toEqual([expect.objectContaining({ level: 40, url: "/api/hangs", status: null, msg: "request closed before its response was sent" })]);
   });
 
   it("makes up an id when the caller's is missing or not a sane one, and leaves pages out of the log", async () => {

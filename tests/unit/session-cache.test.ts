@@ -2,7 +2,14 @@
 // the answer must be exactly Auth.js's own, expired tokens stay refused, and forged ones never pass.
 import { encode } from "@auth/core/jwt";
 import { afterEach, describe, expect, it, vi } from "vitest";
-import { sessionReader } from "../../server/auth/session-cache";
+import { sessionCookiePart, sessionReader } from "../../server/auth/session-cache";
+
+// Count how often Auth.js actually opens a cookie, to see what is answered from memory.
+const opened = vi.hoisted(() => ({ count: 0 }));
+vi.mock("@auth/core/jwt", async (importOriginal) => {
+  const real = await importOriginal<typeof import("@auth/core/jwt")>();
+  return { ...real, getToken: (...args: Parameters<typeof real.getToken>) => (opened.count++, real.getToken(...args)) };
+});
 
 const secret = "a-test-secret-that-is-long-enough-for-hkdf-000";
 const salt = "authjs.session-token";
@@ -20,6 +27,32 @@ describe("session reader", () => {
     expect(second).toEqual(first);
   });
 
+  it("answers a session cookie it has opened from memory, whatever other cookies come along", async () => {
+    const read = sessionReader({ secret, secureCookie: false });
+    const token = await encode({ token: { sub: "user_priya" }, secret, salt, maxAge: 3600 });
+    const before = opened.count;
+    await read(header(token));
+    await read(`theme=dark; authjs.session-token=${token}`);
+    await read(`authjs.session-token=${token}; authjs.callback-url=%2Fwalks`);
+    expect(opened.count - before).toBe(1);
+  });
+
+  it("keeps two members apart when their other cookies are the same", async () => {
+    const read = sessionReader({ secret, secureCookie: false });
+    const priya = await encode({ token: { sub: "user_priya" }, secret, salt, maxAge: 3600 });
+    const tomas = await encode({ token: { sub: "user_tomas" }, secret, salt, maxAge: 3600 });
+    expect(await read(header(priya))).toMatchObject({ sub: "user_priya" });
+    expect(await read(header(tomas))).toMatchObject({ sub: "user_tomas" });
+    expect(await read(header(priya))).toMatchObject({ sub: "user_priya" });
+  });
+
+  it("finds the session cookie and its numbered chunks, and nothing else", () => {
+    expect(sessionCookiePart("a=1; authjs.session-token.0=x; authjs.session-token.1=y; b=2", false)).toBe("authjs.session-token.0=x; authjs.session-token.1=y");
+    expect(sessionCookiePart("authjs.session-tokenish=x; authjs.csrf-token=z", false)).toBeNull();
+    expect(sessionCookiePart("__Secure-authjs.session-token=x", false)).toBeNull();
+    expect(sessionCookiePart("__Secure-authjs.session-token=x", true)).toBe("__Secure-authjs.session-token=x");
+  });
+
   it("reads only the secure cookie behind https", async () => {
     const secureSalt = "__Secure-authjs.session-token";
     const token = await encode({ token: { sub: "user_priya" }, secret, salt: secureSalt, maxAge: 3600 });
@@ -32,7 +65,10 @@ describe("session reader", () => {
     const token = await encode({ token: { sub: "user_priya" }, secret, salt, maxAge: 3600 });
     expect(await sessionReader({ secret: `${secret}-other`, secureCookie: false })(header(token))).toBeNull();
     const flipped = token.slice(0, -3) + (token.at(-3) === "A" ? "B" : "A") + token.slice(-2);
+    const before = opened.count;
     expect(await read(header(flipped))).toBeNull();
+    expect(await read(header(flipped))).toBeNull();
+    expect(opened.count - before).toBe(2); // opened again each time: a refusal is not remembered
     expect(await read(header(token))).toMatchObject({ sub: "user_priya" });
   });
 

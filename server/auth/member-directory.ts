@@ -132,17 +132,18 @@ export async function startMemberDirectory(options: MemberDirectoryOptions): Pro
   const heartbeatMs = options.heartbeatMs ?? 10_000;
   const heartbeatTimeoutMs = options.heartbeatTimeoutMs ?? 5_000;
   let heartbeatTimer: NodeJS.Timeout | undefined;
+  /** The heartbeat on its way back, and the timer that declares the connection lost if it is not. */
+  let awaited: { payload: string; timer: NodeJS.Timeout } | undefined;
   let wasLost = false;
+  const stopHeartbeat = () => {
+    if (heartbeatTimer) clearInterval(heartbeatTimer);
+    heartbeatTimer = undefined;
+    if (awaited) clearTimeout(awaited.timer);
+    awaited = undefined;
+  };
 
   const connect = async () => {
     const c = new pg.Client({ connectionString: options.connectionString, application_name: "dropwise-member-changes", keepAlive: true });
-    let awaited: { payload: string; timer: NodeJS.Timeout } | undefined;
-    const stopHeartbeat = () => {
-      if (heartbeatTimer) clearInterval(heartbeatTimer);
-      heartbeatTimer = undefined;
-      if (awaited) clearTimeout(awaited.timer);
-      awaited = undefined;
-    };
     const lost = (err?: Error) => {
       if (client !== c) return;
       client = undefined;
@@ -205,7 +206,7 @@ export async function startMemberDirectory(options: MemberDirectoryOptions): Pro
     async close() {
       closed = true;
       if (retryTimer) clearTimeout(retryTimer);
-      if (heartbeatTimer) clearInterval(heartbeatTimer);
+      stopHeartbeat();
       await cache.close();
       const c = client;
       client = undefined;

@@ -3,9 +3,9 @@ import { isPoeSource, type PoeSource, type PowerSource } from '../model/power-so
 import type { Site } from '../model/site';
 import { POE_TYPES } from '../standards/poe-types';
 import { formatPercent, formatWatts, roundTo } from '../units';
-import { deferredField } from './deferred-text';
-import { evaluateDevice } from './recommend-device';
+import { deferredField, deferredList } from './deferred-text';
 import type { DeviceEvaluation, PlanWarning } from './result-types';
+import { planOfResults, planSite, type SitePlan } from './site-plan';
 
 /**
  * Automatic port assignment.
@@ -53,8 +53,24 @@ export interface PortAssignment {
   readonly warnings: readonly PlanWarning[];
 }
 
+/** @internal The assignment as columns; its lists of records are made when first read. */
+export interface AssignmentWork {
+  readonly assignment: PortAssignment;
+  /** For each device (site index): the index in `poeSources` of its source (−1 for none), and its port (0 for none). */
+  readonly sourceOf: Int32Array;
+  readonly portOf: Int32Array;
+  /** 1 for each device placed on the port it is pinned to. */
+  readonly pinned: Uint8Array;
+  /** The site indexes of the devices with a port, in the order they were placed. */
+  readonly placedOrder: readonly number[];
+  /** The site index of the device of each entry of `assignment.unassigned`, in the same order. */
+  readonly unassignedDevice: readonly number[];
+}
+
 interface SourceState {
   readonly src: PoeSource;
+  /** Its place in the site's PoE sources. */
+  readonly index: number;
   readonly ports: number;
   readonly taken: Uint8Array;
   nextFree: number;
@@ -63,6 +79,8 @@ interface SourceState {
   readonly budgetW: number;
   readonly limitW: number;
   readonly onBattery: boolean;
+  /** Where it sits in the first-fit trees being used. */
+  readonly leaves: { tree: MaxTree; index: number }[];
 }
 
 const EPS = 1e-9;
@@ -72,12 +90,12 @@ export function sourceBudgetW(src: PoeSource): number {
   return src.budgetW ?? src.ports * POE_TYPES[src.poeType].psePowerW;
 }
 
-function newState(src: PoeSource, ceiling: number, onBattery: boolean): SourceState {
+function newState(src: PoeSource, index: number, ceiling: number, onBattery: boolean): SourceState {
   const ports = src.kind === 'poe_switch' ? src.poePorts : src.ports;
   const budgetW = sourceBudgetW(src);
   return {
-    src, ports, taken: new Uint8Array(ports + 1), nextFree: 1, free: ports, usedW: 0,
-    budgetW, limitW: src.kind === 'poe_switch' ? budgetW * ceiling : budgetW, onBattery,
+    src, index, ports, taken: new Uint8Array(ports + 1), nextFree: 1, free: ports, usedW: 0,
+    budgetW, limitW: src.kind === 'poe_switch' ? budgetW * ceiling : budgetW, onBattery, leaves: [],
   };
 }
 
@@ -118,9 +136,9 @@ function typeName(t: number): string {
   return t >= 3 ? `${s.standardName} Type ${t}` : s.standardName;
 }
 
-/** Assign PoE devices to switch and injector ports. Evaluates the devices if results are not given. */
+/** Assign PoE devices to switch and injector ports. Plans the devices if their results are not given. */
 export function assignPorts(site: Site, devices?: readonly DeviceEvaluation[]): PortAssignment {
-  const evals = devices ?? site.devices.map((d) => evaluateDevice(d, site));
+  const plan = devices === undefined ? planSite(site.devices, site.settings) : planOfResults(devices);
   const sourceById = new Map<string, PowerSource>();
   const poeSources: PoeSource[] = [];
   for (const s of site.powerSources) {
@@ -129,52 +147,62 @@ export function assignPorts(site: Site, devices?: readonly DeviceEvaluation[]): 
   }
   const batteryBySource = new Map<string, BatteryBackup>();
   for (const b of site.batteries) for (const id of b.feeds) batteryBySource.set(id, b);
-  return assignPortsWith(site, evals, sourceById, poeSources, batteryBySource);
+  return assignPortsWith(site, plan, sourceById, poeSources, batteryBySource).assignment;
 }
 
 /** @internal Shared by assignPorts and the site evaluation (precomputed maps). */
 export function assignPortsWith(
   site: Site,
-  evals: readonly DeviceEvaluation[],
+  plan: SitePlan,
   sourceById: ReadonlyMap<string, PowerSource>,
   poeSources: readonly PoeSource[],
   batteryBySource: ReadonlyMap<string, BatteryBackup>,
-): PortAssignment {
+): AssignmentWork {
   const settings = site.settings;
   const byClass = settings.budgetBasis === 'class';
   const ceiling = settings.planningCeiling;
   const states = new Map<string, SourceState>();
   const stateList: SourceState[] = [];
-  for (const s of poeSources) {
-    const st = newState(s, ceiling, batteryBySource.has(s.id) || s.onBattery);
+  poeSources.forEach((s, index) => {
+    const st = newState(s, index, ceiling, batteryBySource.has(s.id) || s.onBattery);
     states.set(s.id, st);
     stateList.push(st);
-  }
-  const placements: PortPlacement[] = [];
-  const unassigned: UnassignedDevice[] = [];
-  const warnings: PlanWarning[] = [];
+  });
   const devices = site.devices;
+  const n = devices.length;
+  const poeClass = plan.poeClass;
+  const poeType = plan.poeType;
+  const demandW = byClass ? plan.reservedW : plan.expectedPseW;
+  const sourceOf = new Int32Array(n).fill(-1);
+  const portOf = new Int32Array(n);
+  const pinned = new Uint8Array(n);
+  const order: number[] = [];
+  const pinProblems: UnassignedDevice[] = [];
+  const unassignedDevice: number[] = [];
+  const warnings: PlanWarning[] = [];
 
-  const place = (i: number, st: SourceState, port: number, pinned: boolean): void => {
-    const e = evals[i];
-    const poe = e.poe!;
+  const place = (i: number, st: SourceState, port: number, byHand: boolean): void => {
     take(st, port);
-    st.usedW += byClass ? poe.reservedW : poe.expectedPseW;
-    placements.push({
-      deviceId: e.deviceId, sourceId: st.src.id, port, pinned, critical: e.mustStayUp,
-      reservedW: poe.reservedW, expectedPseW: poe.expectedPseW,
-    });
+    st.usedW += demandW[i];
+    sourceOf[i] = st.index;
+    portOf[i] = port;
+    if (byHand) pinned[i] = 1;
+    order.push(i);
   };
 
   // Pass 1: pins. Collect the rest for automatic placement.
   const auto: number[] = [];
   const pinnedNoPort: number[] = [];
-  for (let i = 0; i < devices.length; i++) {
+  for (let i = 0; i < n; i++) {
     const d = devices[i];
-    const e = evals[i];
-    const src = d.sourceId === undefined ? undefined : sourceById.get(d.sourceId);
+    const hasPoe = poeClass[i] >= 0;
+    if (d.sourceId === undefined) {
+      if (hasPoe) auto.push(i);
+      continue;
+    }
+    const src = sourceById.get(d.sourceId);
     const st = src === undefined ? undefined : states.get(src.id);
-    if (e.poe === null) {
+    if (!hasPoe) {
       if (st !== undefined) {
         const passive = d.input.type === 'passive_poe';
         warnings.push({
@@ -198,11 +226,12 @@ export function assignPortsWith(
       auto.push(i);
       continue;
     }
-    if (st.src.poeType < e.poe.poeType) {
-      unassigned.push({
+    if (st.src.poeType < poeType[i]) {
+      pinProblems.push({
         deviceId: d.id, code: 'pinned_type_too_low',
-        reason: `It is pinned to "${st.src.name}", whose ports are ${typeName(st.src.poeType)}, but it needs ${typeName(e.poe.poeType)} (Class ${e.poe.poeClass}).`,
+        reason: `It is pinned to "${st.src.name}", whose ports are ${typeName(st.src.poeType)}, but it needs ${typeName(poeType[i])} (Class ${poeClass[i]}).`,
       });
+      unassignedDevice.push(i);
       continue;
     }
     if (d.port !== undefined) place(i, st, d.port, true);
@@ -212,26 +241,16 @@ export function assignPortsWith(
     const st = states.get(devices[i].sourceId!)!;
     if (st.free > 0) place(i, st, st.nextFree, true);
     else {
-      unassigned.push({
+      pinProblems.push({
         deviceId: devices[i].id, code: 'pinned_source_full',
         reason: `It is pinned to "${st.src.name}", but all ${st.ports} of its PoE ports are taken.`,
       });
+      unassignedDevice.push(i);
     }
   }
 
-  // Pass 2: automatic placement.
-  const demand = (i: number): number => {
-    const p = evals[i].poe!;
-    return byClass ? p.reservedW : p.expectedPseW;
-  };
-  // Sort keys gathered once (the comparator then reads two typed arrays, not the results).
-  const crit = new Uint8Array(devices.length);
-  const dem = new Float64Array(devices.length);
-  for (const i of auto) {
-    crit[i] = evals[i].mustStayUp ? 1 : 0;
-    dem[i] = demand(i);
-  }
-  auto.sort((a, b) => (crit[b] - crit[a]) || (dem[b] - dem[a]) || (a - b));
+  // Pass 2: automatic placement, critical first, then largest demand first, then site order.
+  sortForPlacement(auto, plan, demandW);
   const switchesBattery = stateList.filter((s) => s.src.kind === 'poe_switch' && s.onBattery);
   const switchesOther = stateList.filter((s) => s.src.kind === 'poe_switch' && !s.onBattery);
   const injBattery = stateList.filter((s) => s.src.kind === 'injector' && s.onBattery);
@@ -243,56 +262,96 @@ export function assignPortsWith(
   // max-tree over the eligible sources (in that order) of their remaining room
   // (−∞ once their ports are full). Finding "the first source with room ≥ need"
   // is a descent of the tree; placing a device updates the source's leaves.
+  // Critical devices come first in `auto`, so the critical trees are done with
+  // before the others are built from the sources as the critical devices left them.
   const room = (st: SourceState): number => (st.free > 0 ? st.limitW - st.usedW : -Infinity);
-  const leaves = new Map<SourceState, { tree: MaxTree; index: number }[]>();
-  const buildTrees = (order: readonly SourceState[]): { trees: MaxTree[]; lists: SourceState[][] } => {
+  const failed: number[] = [];
+  let next = 0;
+  for (const sources of [criticalOrder, normalOrder]) {
+    const forCritical = sources === criticalOrder;
     const trees: MaxTree[] = [];
     const lists: SourceState[][] = [];
+    for (const st of sources) st.leaves.length = 0;
     for (let t = 1; t <= 4; t++) {
-      const list = order.filter((st) => st.src.poeType >= t);
+      const list = sources.filter((st) => st.src.poeType >= t);
       const tree = new MaxTree(list.map(room));
-      list.forEach((st, index) => {
-        let l = leaves.get(st);
-        if (l === undefined) leaves.set(st, (l = []));
-        l.push({ tree, index });
-      });
+      list.forEach((st, index) => st.leaves.push({ tree, index }));
       trees[t] = tree;
       lists[t] = list;
     }
-    return { trees, lists };
-  };
-  const critical = buildTrees(criticalOrder);
-  const normal = buildTrees(normalOrder);
-  const failed: number[] = [];
-
-  for (const i of auto) {
-    const poe = evals[i].poe!;
-    const need = dem[i];
-    const group = crit[i] === 1 ? critical : normal;
-    const k = group.trees[poe.poeType].firstAtLeast(need - EPS);
-    if (k < 0) {
-      failed.push(i);
-      continue;
+    for (; next < auto.length; next++) {
+      const i = auto[next];
+      if (plan.mustStayUp(i) !== forCritical) break;
+      const type = poeType[i];
+      const k = trees[type].firstAtLeast(demandW[i] - EPS);
+      if (k < 0) {
+        failed.push(i);
+        continue;
+      }
+      const st = lists[type][k];
+      place(i, st, st.nextFree, false);
+      const r = room(st);
+      for (const leaf of st.leaves) leaf.tree.update(leaf.index, r);
     }
-    const st = group.lists[poe.poeType][k];
-    place(i, st, st.nextFree, false);
-    const r = room(st);
-    for (const leaf of leaves.get(st)!) leaf.tree.update(leaf.index, r);
   }
 
   // Reasons are written against the final state, summarised once per PoE type.
-  if (failed.length > 0) {
-    const summaries = new Map<number, TypeSummary>();
-    for (const i of failed) {
-      const poe = evals[i].poe!;
-      let sum = summaries.get(poe.poeType);
-      if (sum === undefined) summaries.set(poe.poeType, (sum = summarise(stateList, poe.poeType)));
-      unassigned.push(unassignedReason(evals[i].deviceId, poe.poeType, poe.poeClass, demand(i), sum, byClass, ceiling));
-    }
+  const summaries = new Map<number, TypeSummary>();
+  for (const i of failed) {
+    if (!summaries.has(poeType[i])) summaries.set(poeType[i], summarise(stateList, poeType[i]));
+    unassignedDevice.push(i);
   }
 
-  return { placements, unassigned, warnings };
+  const placements = deferredList<PortPlacement>((into) => {
+    for (const i of order) {
+      into.push({
+        deviceId: devices[i].id, sourceId: poeSources[sourceOf[i]].id, port: portOf[i], pinned: pinned[i] === 1,
+        critical: plan.mustStayUp(i), reservedW: plan.reservedW[i], expectedPseW: plan.expectedPseW[i],
+      });
+    }
+  });
+  const unassigned = deferredList<UnassignedDevice>((into) => {
+    for (const u of pinProblems) into.push(u);
+    for (const i of failed) {
+      into.push(unassignedReason(devices[i].id, poeType[i], poeClass[i], demandW[i], summaries.get(poeType[i])!, byClass, ceiling));
+    }
+  });
+  return { assignment: { placements, unassigned, warnings }, sourceOf, portOf, pinned, placedOrder: order, unassignedDevice };
 }
+
+/**
+ * Sort device indexes for automatic placement: critical (must stay up) first, then the larger
+ * demand, then site order. Demands are whole milliwatts (the rules round them so), so the three
+ * keys pack exactly into one number per device and a plain numeric sort does the work; other
+ * figures fall back to comparing the keys one by one.
+ */
+function sortForPlacement(auto: number[], plan: SitePlan, demandW: Float64Array): void {
+  const n = auto.length;
+  const keys = new Float64Array(n);
+  let packs = plan.size < INDEX_SPAN;
+  for (let k = 0; k < n && packs; k++) {
+    const i = auto[k];
+    const mW = demandW[i] * 1000;
+    const q = Math.round(mW);
+    if (!(q >= 0 && q < DEMAND_SPAN && Math.abs(mW - q) < 1e-6)) {
+      packs = false;
+      break;
+    }
+    keys[k] = ((plan.mustStayUp(i) ? 0 : DEMAND_SPAN) + (DEMAND_SPAN - 1 - q)) * INDEX_SPAN + i;
+  }
+  if (packs) {
+    keys.sort();
+    for (let k = 0; k < n; k++) auto[k] = keys[k] % INDEX_SPAN;
+    return;
+  }
+  const crit = new Uint8Array(plan.size);
+  for (const i of auto) crit[i] = plan.mustStayUp(i) ? 1 : 0;
+  auto.sort((a, b) => (crit[b] - crit[a]) || (demandW[b] - demandW[a]) || (a - b));
+}
+
+/** Packed sort keys: up to 2^26 mW (67 kW) of demand and 2^22 devices, well within a double's 2^53. */
+const DEMAND_SPAN = 2 ** 26;
+const INDEX_SPAN = 2 ** 22;
 
 interface TypeSummary {
   readonly eligible: number;

@@ -2,7 +2,8 @@ import { capacityWh, type BatteryBackup } from '../model/battery';
 import type { Site } from '../model/site';
 import { CAUTIONS, type Caution } from '../standards/cautions';
 import { formatMinutes, formatPercent, formatWattHours, formatWatts, roundTo } from '../units';
-import { buildPlanContext, sourceOnBattery, type PlanContext } from './plan-context';
+import { deferredList } from './deferred-text';
+import { buildPlanContext, poeSourceIndex, sourceOnBattery, type PlanContext } from './plan-context';
 import type { PlanWarning } from './result-types';
 
 /**
@@ -80,9 +81,20 @@ export interface BatteryReport {
   readonly outage: OutageReport;
 }
 
-const NO_SOURCE = 'It has no power source in this plan.';
-const NO_PORT = 'It has no PoE port assigned yet.';
-const OUTLET_NOT_BACKED = 'Its outlet is not on a battery backup.';
+/** Whether a device stays up in a power cut, on which battery, for how long, and why. */
+interface Verdict {
+  readonly staysUp: boolean;
+  readonly batteryId: string | null;
+  readonly minutes: number | null;
+  readonly reason: string;
+}
+
+function goesDown(reason: string): Verdict {
+  return Object.freeze({ staysUp: false, batteryId: null, minutes: null, reason });
+}
+const NO_SOURCE = goesDown('It has no power source in this plan.');
+const NO_PORT = goesDown('It has no PoE port assigned yet.');
+const OUTLET_NOT_BACKED = goesDown('Its outlet is not on a battery backup.');
 
 /** Usable energy (Wh) = capacity × DoD × η × age. */
 export function usableWattHours(b: Pick<BatteryBackup, 'capacity' | 'depthOfDischarge' | 'inverterEfficiency' | 'ageFactor'>): number {
@@ -97,15 +109,16 @@ export function runtimeMinutes(usableWh: number, loadW: number): number | null {
 /** @internal */
 export function evaluateBatteriesWith(ctx: PlanContext): BatteryReport {
   const site = ctx.site;
-  const outletDevices = new Map<string, string[]>();
+  const plan = ctx.plan;
+  // The devices pinned to each outlet, by site index.
+  const outletDevices = new Map<string, number[]>();
   site.devices.forEach((d, i) => {
-    const e = ctx.devices[i];
-    if (d.sourceId === undefined || e.outlet === null) return;
+    if (d.sourceId === undefined || plan.outletVia(i) === null) return;
     const src = ctx.sourceById.get(d.sourceId);
     if (src === undefined || src.kind !== 'outlet') return;
     let list = outletDevices.get(src.id);
     if (list === undefined) outletDevices.set(src.id, (list = []));
-    list.push(d.id);
+    list.push(i);
   });
 
   const runtimeByBattery = new Map<string, number | null>();
@@ -117,19 +130,23 @@ export function evaluateBatteriesWith(ctx: PlanContext): BatteryReport {
       const src = ctx.sourceById.get(id);
       if (src === undefined) continue;
       if (src.kind === 'outlet') {
-        const ids = outletDevices.get(src.id) ?? [];
+        const ids: string[] = [];
         let w = 0;
-        for (const dId of ids) w += ctx.deviceById.get(dId)!.needW;
+        for (const i of outletDevices.get(src.id) ?? []) {
+          w += roundTo(plan.needW[i], 3);
+          ids.push(site.devices[i].id);
+        }
         loads.push({ sourceId: src.id, name: src.name, kind: 'outlet', deliveredW: roundTo(w, 3), efficiency: 1, ownDrawW: 0, wallW: roundTo(w, 3), deviceIds: ids });
         for (const dId of ids) deviceIds.push(dId);
       } else {
-        const ps = ctx.placementsBySource.get(src.id) ?? [];
         let w = 0;
         const ids: string[] = [];
-        for (const p of ps) {
-          w += p.expectedPseW;
-          ids.push(p.deviceId);
-          deviceIds.push(p.deviceId);
+        const s = poeSourceIndex(ctx, src);
+        for (let k = ctx.sourceStart[s]; k < ctx.sourceStart[s + 1]; k++) {
+          const i = ctx.onSource[k];
+          w += plan.expectedPseW[i];
+          ids.push(site.devices[i].id);
+          deviceIds.push(site.devices[i].id);
         }
         const eff = src.kind === 'poe_switch' ? src.supplyEfficiency : src.efficiency;
         const own = src.kind === 'poe_switch' ? src.ownDrawW : 0;
@@ -180,12 +197,12 @@ export function evaluateBatteriesWith(ctx: PlanContext): BatteryReport {
     });
   }
 
-  // Outage: who stays up, and for how long. Reasons are shared per source.
-  const devices: OutageDevice[] = [];
-  const criticalDown: string[] = [];
-  const warnings: PlanWarning[] = [];
-  const perSource = new Map<string, { staysUp: boolean; batteryId: string | null; minutes: number | null; reason: string }>();
-  const sourceVerdict = (srcId: string) => {
+  // Outage: who stays up, and for how long. Verdicts (with their reasons) are shared per source;
+  // each device's own record is made when the list is first read.
+  /** Site indexes of the must-stay-up devices that go down. */
+  const criticalDown: number[] = [];
+  const perSource = new Map<string, Verdict>();
+  const sourceVerdict = (srcId: string): Verdict => {
     let v = perSource.get(srcId);
     if (v !== undefined) return v;
     const src = ctx.sourceById.get(srcId)!;
@@ -202,41 +219,45 @@ export function evaluateBatteriesWith(ctx: PlanContext): BatteryReport {
     return v;
   };
   let up = 0;
-  site.devices.forEach((d, i) => {
-    const e = ctx.devices[i];
-    let staysUp = false;
-    let batteryId: string | null = null;
-    let minutes: number | null = null;
-    let reason: string;
-    const placement = ctx.placementByDevice.get(d.id);
-    const srcId = placement?.sourceId ?? (e.outlet !== null ? d.sourceId : undefined);
-    if (e.recommendation === 'cannot_power') {
-      reason = NO_SOURCE;
-    } else if (e.poe !== null && placement === undefined) {
-      reason = NO_PORT;
-    } else if (srcId === undefined || !ctx.sourceById.has(srcId)) {
-      reason = OUTLET_NOT_BACKED;
-    } else {
-      const v = sourceVerdict(srcId);
-      staysUp = v.staysUp;
-      batteryId = v.batteryId;
-      minutes = v.minutes;
-      reason = v.reason;
-    }
-    if (staysUp) up++;
-    else if (d.mustStayUp) {
-      criticalDown.push(d.id);
-      warnings.push({
+  const verdicts: Verdict[] = new Array(site.devices.length);
+  const devices = site.devices;
+  for (let i = 0; i < devices.length; i++) {
+    const d = devices[i];
+    const source = ctx.sourceOf[i];
+    const srcId = source >= 0 ? ctx.poeSources[source].id : plan.outletVia(i) !== null ? d.sourceId : undefined;
+    let v: Verdict;
+    if (plan.recommendation(i) === 'cannot_power') v = NO_SOURCE;
+    else if (plan.hasPoe(i) && source < 0) v = NO_PORT;
+    else if (srcId === undefined || !ctx.sourceById.has(srcId)) v = OUTLET_NOT_BACKED;
+    else v = sourceVerdict(srcId);
+    verdicts[i] = v;
+    if (v.staysUp) up++;
+    else if (d.mustStayUp) criticalDown.push(i);
+  }
+  // One warning per must-stay-up device that goes down (all of severity "warning"), listed on first read.
+  const warnings = deferredList<PlanWarning>((into) => {
+    for (const i of criticalDown) {
+      const d = devices[i];
+      into.push({
         code: 'critical_goes_down', severity: 'warning', deviceId: d.id,
-        message: `"${d.name}" must keep working in a power cut, but it would go down: ${reason}`,
+        message: `"${d.name}" must keep working in a power cut, but it would go down: ${verdicts[i].reason}`,
       });
     }
-    devices.push({ deviceId: d.id, mustStayUp: d.mustStayUp, staysUp, batteryId, minutes, reason });
+  });
+  const outageDevices = deferredList<OutageDevice>((into) => {
+    for (let i = 0; i < devices.length; i++) {
+      const d = devices[i];
+      const v = verdicts[i];
+      into.push({ deviceId: d.id, mustStayUp: d.mustStayUp, staysUp: v.staysUp, batteryId: v.batteryId, minutes: v.minutes, reason: v.reason });
+    }
   });
 
   return {
     batteries,
-    outage: { devices, staysUpCount: up, goesDownCount: devices.length - up, criticalDown, warnings },
+    outage: {
+      devices: outageDevices, staysUpCount: up, goesDownCount: devices.length - up,
+      criticalDown: criticalDown.map((i) => devices[i].id), warnings,
+    },
   };
 }
 

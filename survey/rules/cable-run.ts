@@ -9,6 +9,7 @@ import { POE_TYPES, type PoeType } from '../standards/poe-types';
 import type { CableRun } from '../model/device';
 import { formatLength, formatOhms, formatPercent, formatVolts, formatWatts, roundTo, type UnitSystem } from '../units';
 import { deferredField } from './deferred-text';
+import { C, CABLE_WARNINGS, W } from './device-flags';
 import { drawForPdLoad, lossAtPsePower } from './poe-loss';
 import type {
   CableAtClassPower, CableAtExpectedLoad, CablePassiveCheck, CablePoeCheck, CableRunEvaluation, PlanWarning,
@@ -68,12 +69,6 @@ function cableWarning(code: string, severity: PlanWarning['severity'], deviceId:
   return deferredField<PlanWarning, 'message'>({ code, severity, deviceId, message: '' }, 'message', write);
 }
 
-/**
- * The problem codes of the run being checked. Runs are checked one at a time, so the list is
- * reused and each evaluation keeps an exact-size copy (a fresh list would grow to room for 17).
- */
-const foundProblems: string[] = [];
-
 function addCaution(cautions: Caution[], c: Caution): void {
   if (!cautions.includes(c)) cautions.push(c);
 }
@@ -91,155 +86,276 @@ export function evaluateCableRun(run: CableRun, o: CableRunOptions): CableRunRes
  * to the caller's lists. Its reason, if any, is `deliveredReason(evaluation, units)`.
  */
 export function checkCableRun(run: CableRun, o: CableRunOptions, warnings: PlanWarning[], cautions: Caution[]): CableRunEvaluation {
-  const problems = foundProblems;
-  problems.length = 0;
-  const u = o.units;
-  const deviceId = o.deviceId;
-  const lengthM = run.lengthM;
-  const category = run.category;
-  const cca = run.cca;
+  const f = measureCableRun(run, o, new RunFigures());
+  addCableWarnings(f.warnings, run, o, f, warnings);
+  if ((f.cautions & C.no_cca) !== 0) addCaution(cautions, CAUTIONS.no_cca);
+  if ((f.cautions & C.outdoor_runs) !== 0) addCaution(cautions, CAUTIONS.outdoor_runs);
+  if ((f.cautions & C.bundling) !== 0) addCaution(cautions, CAUTIONS.bundling);
+  return cableRunEvaluation(run, o, f);
+}
 
+/**
+ * Every figure of one run's checks, unrounded, with the warnings (bits of `W`) and cautions
+ * (bits of `C`) they raise. Working a run out into these figures makes no objects, so the site
+ * rules can check thousands of runs and build the result records only when they are read.
+ */
+export class RunFigures {
+  gauge: AwgGauge = 23;
+  gaugeAssumed = false;
+  channelM = 0;
+  ohmPerM = 0;
+  loopOhm = 0;
+  withinPermanentLink = true;
+  withinChannel = true;
+  /** The PoE checks below were made (o.poe was given). */
+  hasPoe = false;
+  poeClass: PoeClass = 0;
+  poeType: PoeType = 1;
+  pairs: 2 | 4 = 2;
+  pseVoltageMinV = 0;
+  pdVoltageMinV = 0;
+  /** At full class power. */
+  classCurrentA = 0;
+  classLossW = 0;
+  classPdPowerW = 0;
+  classPdVoltageV = 0;
+  meetsClassPower = true;
+  meetsMinVoltage = true;
+  /** At the expected load. */
+  loadFeasible = true;
+  loadCurrentA = 0;
+  loadLossW = 0;
+  loadPsePowerW = 0;
+  loadPdVoltageV = 0;
+  loadMeetsMinVoltage = true;
+  /** The passive PoE check was made (o.passive was given). */
+  hasPassive = false;
+  passiveCurrentA = 0;
+  passiveDropV = 0;
+  passiveDropFraction = 0;
+  /** Power can be delivered over this run within the standard. */
+  ok = true;
+  warnings = 0;
+  cautions = 0;
+}
+
+/** Work out the checks of `run` into `f` (which is returned). */
+export function measureCableRun(run: CableRun, o: CableRunOptions, f: RunFigures): RunFigures {
+  const want = o.poe;
+  const pass = o.passive;
+  return measureRun(
+    run, o.temperatureC, o.cordAllowanceM, o.outdoor === true,
+    want ? want.poeClass : -1, want ? want.poeType : 1, want ? want.pdLoadW : 0, pass ? pass.volts : 0, pass ? pass.loadW : 0, f,
+  );
+}
+
+/**
+ * `measureCableRun` with the options spelled out, so that checking a run makes no objects:
+ * a PoE check at `poeClass` (−1 for none) with `pdLoadW` at the device, a passive check at
+ * `passiveVolts` (0 for none) with `passiveLoadW`.
+ */
+export function measureRun(
+  run: CableRun, temperatureC: number, cordAllowanceM: number, outdoor: boolean,
+  poeClass: number, poeType: PoeType, pdLoadW: number, passiveVolts: number, passiveLoadW: number, f: RunFigures,
+): RunFigures {
+  const lengthM = run.lengthM;
   const gaugeAssumed = run.gauge === undefined;
-  const gauge: AwgGauge = gaugeAssumed ? DEFAULT_GAUGE[category] : run.gauge!;
-  const channelM = lengthM + o.cordAllowanceM;
-  const ohmPerM = conductorOhmPerM(gauge, o.temperatureC, cca);
+  const gauge: AwgGauge = gaugeAssumed ? DEFAULT_GAUGE[run.category] : run.gauge!;
+  const channelM = lengthM + cordAllowanceM;
+  const ohmPerM = conductorOhmPerM(gauge, temperatureC, run.cca);
   const loopOhm = pairsetLoopOhm(ohmPerM, channelM);
   const withinPermanentLink = lengthM <= CHANNEL_LIMITS.permanentLinkMaxM + EPS;
   const withinChannel = channelM <= CHANNEL_LIMITS.channelMaxM + EPS;
-
-  if (!withinChannel) {
-    problems.push('channel_over_100m');
-    warnings.push(cableWarning('channel_over_100m', 'error', deviceId, () =>
-      `The cable run is ${formatLength(lengthM, u)} (${formatLength(channelM, u)} with cords), longer than the ${formatLength(CHANNEL_LIMITS.channelMaxM, u)} a network cable may be. Put a small switch closer or find a shorter route.`));
-  } else if (!withinPermanentLink) {
-    problems.push('link_over_90m');
-    warnings.push(cableWarning('link_over_90m', 'warning', deviceId, () =>
-      `The fixed cable is ${formatLength(lengthM, u)}, more than the ${formatLength(CHANNEL_LIMITS.permanentLinkMaxM, u)} the cabling standard allows for it; it works only with very short cords and should be tested after installation.`));
+  let warnings = 0;
+  let cautions = 0;
+  if (!withinChannel) warnings |= W.channel_over_100m;
+  else if (!withinPermanentLink) warnings |= W.link_over_90m;
+  if (run.cca) {
+    warnings |= W.cca_cable;
+    cautions |= C.no_cca;
   }
-  if (cca) {
-    problems.push('cca');
-    addCaution(cautions, CAUTIONS.no_cca);
-    warnings.push({ code: 'cca_cable', severity: 'error', deviceId, message: CCA_MESSAGE });
-  }
-  if (gauge === 26) {
-    problems.push('thin_gauge');
-    warnings.push({ code: 'thin_gauge', severity: 'warning', deviceId, message: THIN_GAUGE_MESSAGE });
-  }
-  if (o.outdoor) addCaution(cautions, CAUTIONS.outdoor_runs);
-
-  let poe: CablePoeCheck | null = null;
-  let passive: CablePassiveCheck | null = null;
+  if (gauge === 26) warnings |= W.thin_gauge;
+  if (outdoor) cautions |= C.outdoor_runs;
+  f.gauge = gauge;
+  f.gaugeAssumed = gaugeAssumed;
+  f.channelM = channelM;
+  f.ohmPerM = ohmPerM;
+  f.loopOhm = loopOhm;
+  f.withinPermanentLink = withinPermanentLink;
+  f.withinChannel = withinChannel;
   let ok = withinChannel;
 
-  const want = o.poe;
-  if (want) {
-    const poeClass = want.poeClass;
-    const poeType = want.poeType;
+  f.hasPoe = poeClass >= 0;
+  if (poeClass >= 0) {
+    const cls = POE_CLASSES[poeClass as PoeClass];
     const spec = POE_TYPES[poeType];
-    const cls = POE_CLASSES[poeClass];
     const pairs = cls.pairs;
     const v = spec.pseVoltageMinV;
     const pdVoltageMinV = spec.pdVoltageMinV;
-    const atClassPower = atClassPowerCheck(cls.psePowerW, cls.pdMaxW, v, pdVoltageMinV, loopOhm, pairs);
-    const atExpectedLoad = atExpectedLoadCheck(want.pdLoadW, v, pdVoltageMinV, loopOhm, pairs);
-    const meetsClassPower = atClassPower.meetsClassPower;
-    const meetsMinVoltage = atClassPower.meetsMinVoltage;
-    const expMeetsV = atExpectedLoad.meetsMinVoltage;
-    poe = { poeClass, poeType, pairs, pseVoltageMinV: v, pdVoltageMinV, atClassPower, atExpectedLoad };
-    if (!meetsClassPower) problems.push('class_power_short');
-    if (!meetsMinVoltage || !expMeetsV) problems.push('pd_voltage_low');
-    ok = ok && meetsClassPower && meetsMinVoltage && expMeetsV;
-
-    if (!(meetsClassPower && meetsMinVoltage && expMeetsV)) {
-      warnings.push(cableWarning('cable_cannot_carry', 'error', deviceId, () => {
-        const atClass = lossAtPsePower(cls.psePowerW, v, loopOhm, pairs);
-        return `This cable cannot guarantee Class ${poeClass} power: at full load the device would get ${formatWatts(atClass.pdPowerW)} at ${formatVolts(atClass.pdVoltageV)} (it needs ${formatWatts(cls.pdMaxW)} and at least ${formatVolts(pdVoltageMinV)}). A shorter run or thicker solid-copper cable fixes this.`;
-      }));
-    }
+    const atClass = lossAtPsePower(cls.psePowerW, v, loopOhm, pairs);
+    const atLoad = drawForPdLoad(pdLoadW, v, loopOhm, pairs);
+    const meetsClassPower = atClass.pdPowerW >= cls.pdMaxW - EPS;
+    const meetsMinVoltage = atClass.pdVoltageV >= pdVoltageMinV - EPS;
+    const loadMeetsMinVoltage = atLoad.feasible && atLoad.pdVoltageV >= pdVoltageMinV - EPS;
+    f.poeClass = cls.poeClass;
+    f.poeType = poeType;
+    f.pairs = pairs;
+    f.pseVoltageMinV = v;
+    f.pdVoltageMinV = pdVoltageMinV;
+    f.classCurrentA = atClass.currentA;
+    f.classLossW = atClass.lossW;
+    f.classPdPowerW = atClass.pdPowerW;
+    f.classPdVoltageV = atClass.pdVoltageV;
+    f.meetsClassPower = meetsClassPower;
+    f.meetsMinVoltage = meetsMinVoltage;
+    f.loadFeasible = atLoad.feasible;
+    f.loadCurrentA = atLoad.currentA;
+    f.loadLossW = atLoad.lossW;
+    f.loadPsePowerW = atLoad.psePowerW;
+    f.loadPdVoltageV = atLoad.pdVoltageV;
+    f.loadMeetsMinVoltage = loadMeetsMinVoltage;
+    const delivers = meetsClassPower && meetsMinVoltage && loadMeetsMinVoltage;
+    ok = ok && delivers;
+    if (!delivers) warnings |= W.cable_cannot_carry;
     if (poeType >= 3) {
-      addCaution(cautions, CAUTIONS.bundling);
-      if (category !== TSB_184_A.newBuildCategory) {
-        warnings.push({ code: 'cat6a_recommended', severity: 'info', deviceId, message: CAT6A_MESSAGE[category] });
-      }
+      cautions |= C.bundling;
+      if (run.category !== TSB_184_A.newBuildCategory) warnings |= W.cat6a_recommended;
     }
-    if (cls.psePowerW > NEC_725_144_THRESHOLD_W) {
-      warnings.push({ code: 'nec_725_144', severity: 'info', deviceId, message: NEC_MESSAGE });
-    }
+    if (cls.psePowerW > NEC_725_144_THRESHOLD_W) warnings |= W.nec_725_144;
   }
 
-  const pass = o.passive;
-  if (pass) {
+  f.hasPassive = passiveVolts > 0;
+  if (passiveVolts > 0) {
     // Passive PoE is usually fed on the spare pairs only (one pairset). [MEMORY] pinout; I ≈ P / V.
-    const volts = pass.volts;
-    const currentA = pass.loadW / volts;
+    const currentA = passiveLoadW / passiveVolts;
     const dropV = currentA * loopOhm;
-    const deviceVolts = volts - dropV;
-    const dropFraction = dropV / volts;
+    const dropFraction = dropV / passiveVolts;
+    f.passiveCurrentA = currentA;
+    f.passiveDropV = dropV;
+    f.passiveDropFraction = dropFraction;
+    if (dropFraction > PLANNING.passiveDropWarnFraction.value) warnings |= W.passive_voltage_drop;
+  }
+  f.ok = ok;
+  f.warnings = warnings;
+  f.cautions = cautions;
+  return f;
+}
+
+/** The problem codes of a run, e.g. "channel_over_100m", "cca", "pd_voltage_low". */
+function problemsOf(run: CableRun, f: RunFigures): string[] {
+  const problems: string[] = [];
+  if (!f.withinChannel) problems.push('channel_over_100m');
+  else if (!f.withinPermanentLink) problems.push('link_over_90m');
+  if (run.cca) problems.push('cca');
+  if (f.gauge === 26) problems.push('thin_gauge');
+  if (f.hasPoe) {
+    if (!f.meetsClassPower) problems.push('class_power_short');
+    if (!f.meetsMinVoltage || !f.loadMeetsMinVoltage) problems.push('pd_voltage_low');
+  }
+  if ((f.warnings & W.passive_voltage_drop) !== 0) problems.push('passive_drop');
+  return problems;
+}
+
+/** The result record of a run measured into `f`, rounded for display. */
+export function cableRunEvaluation(run: CableRun, o: CableRunOptions, f: RunFigures): CableRunEvaluation {
+  let poe: CablePoeCheck | null = null;
+  if (f.hasPoe) {
+    const want = o.poe!;
+    const cls = POE_CLASSES[f.poeClass];
+    const atClassPower: CableAtClassPower = {
+      psePowerW: cls.psePowerW,
+      currentA: roundTo(f.classCurrentA, 4),
+      currentPerPairsetA: roundTo(f.pairs === 4 ? f.classCurrentA / 2 : f.classCurrentA, 4),
+      currentPerConductorA: roundTo((f.pairs === 4 ? f.classCurrentA / 2 : f.classCurrentA) / 2, 4),
+      lossW: roundTo(f.classLossW, 3),
+      pdPowerW: roundTo(f.classPdPowerW, 3),
+      pdVoltageV: roundTo(f.classPdVoltageV, 3),
+      meetsClassPower: f.meetsClassPower,
+      meetsMinVoltage: f.meetsMinVoltage,
+    };
+    const atExpectedLoad: CableAtExpectedLoad = {
+      pdLoadW: roundTo(want.pdLoadW, 3),
+      feasible: f.loadFeasible,
+      currentA: roundTo(f.loadCurrentA, 4),
+      lossW: roundTo(f.loadLossW, 3),
+      psePowerW: roundTo(f.loadPsePowerW, 3),
+      pdVoltageV: roundTo(f.loadPdVoltageV, 3),
+      meetsMinVoltage: f.loadMeetsMinVoltage,
+    };
+    poe = {
+      poeClass: f.poeClass, poeType: f.poeType, pairs: f.pairs, pseVoltageMinV: f.pseVoltageMinV, pdVoltageMinV: f.pdVoltageMinV,
+      atClassPower, atExpectedLoad,
+    };
+  }
+  let passive: CablePassiveCheck | null = null;
+  if (f.hasPassive) {
+    const volts = o.passive!.volts;
     passive = {
       volts,
-      currentA: roundTo(currentA, 4),
-      dropV: roundTo(dropV, 3),
-      deviceVolts: roundTo(deviceVolts, 3),
-      dropFraction: roundTo(dropFraction, 4),
+      currentA: roundTo(f.passiveCurrentA, 4),
+      dropV: roundTo(f.passiveDropV, 3),
+      deviceVolts: roundTo(volts - f.passiveDropV, 3),
+      dropFraction: roundTo(f.passiveDropFraction, 4),
     };
-    if (dropFraction > PLANNING.passiveDropWarnFraction.value) {
-      problems.push('passive_drop');
-      warnings.push(cableWarning('passive_voltage_drop', 'warning', deviceId, () =>
-        `The cable drops about ${formatVolts(dropV)} of the ${formatVolts(volts)} passive supply (${formatPercent(dropFraction)}); the device may reset under load. Check its allowed input range.`));
-    }
   }
-
   return {
-    deviceId,
-    lengthM,
+    deviceId: o.deviceId,
+    lengthM: run.lengthM,
     cordAllowanceM: o.cordAllowanceM,
-    channelM: roundTo(channelM, 2),
-    category,
-    gauge,
-    gaugeAssumed,
-    cca,
+    channelM: roundTo(f.channelM, 2),
+    category: run.category,
+    gauge: f.gauge,
+    gaugeAssumed: f.gaugeAssumed,
+    cca: run.cca,
     temperatureC: o.temperatureC,
-    conductorOhmPerM: roundTo(ohmPerM, 6),
-    loopOhm: roundTo(loopOhm, 4),
-    withinPermanentLink,
-    withinChannel,
+    conductorOhmPerM: roundTo(f.ohmPerM, 6),
+    loopOhm: roundTo(f.loopOhm, 4),
+    withinPermanentLink: f.withinPermanentLink,
+    withinChannel: f.withinChannel,
     poe,
     passive,
-    ok,
-    problems: problems.slice(),
+    ok: f.ok,
+    problems: problemsOf(run, f),
   };
 }
 
-/** The run at full class power, with its checks (kept small so that the arithmetic's own objects are optimised away). */
-function atClassPowerCheck(
-  psePowerW: number, pdMaxW: number, pseVoltageV: number, pdVoltageMinV: number, loopOhm: number, pairs: 2 | 4,
-): CableAtClassPower {
-  const a = lossAtPsePower(psePowerW, pseVoltageV, loopOhm, pairs);
-  return {
-    psePowerW,
-    currentA: roundTo(a.currentA, 4),
-    currentPerPairsetA: roundTo(a.currentPerPairsetA, 4),
-    currentPerConductorA: roundTo(a.currentPerPairsetA / 2, 4),
-    lossW: roundTo(a.lossW, 3),
-    pdPowerW: roundTo(a.pdPowerW, 3),
-    pdVoltageV: roundTo(a.pdVoltageV, 3),
-    meetsClassPower: a.pdPowerW >= pdMaxW - EPS,
-    meetsMinVoltage: a.pdVoltageV >= pdVoltageMinV - EPS,
-  };
-}
-
-/** The run at the expected load, with its voltage check. */
-function atExpectedLoadCheck(pdLoadW: number, pseVoltageV: number, pdVoltageMinV: number, loopOhm: number, pairs: 2 | 4): CableAtExpectedLoad {
-  const e = drawForPdLoad(pdLoadW, pseVoltageV, loopOhm, pairs);
-  return {
-    pdLoadW: roundTo(e.pdLoadW, 3),
-    feasible: e.feasible,
-    currentA: roundTo(e.currentA, 4),
-    lossW: roundTo(e.lossW, 3),
-    psePowerW: roundTo(e.psePowerW, 3),
-    pdVoltageV: roundTo(e.pdVoltageV, 3),
-    meetsMinVoltage: e.feasible && e.pdVoltageV >= pdVoltageMinV - EPS,
-  };
+/** Add the warnings of the cable bits in `bits` for a run measured into `f`, in bit order. */
+export function addCableWarnings(bits: number, run: CableRun, o: CableRunOptions, f: RunFigures, into: PlanWarning[]): void {
+  if ((bits & CABLE_WARNINGS) === 0) return;
+  const u = o.units;
+  const deviceId = o.deviceId;
+  const lengthM = run.lengthM;
+  const channelM = f.channelM;
+  if ((bits & W.channel_over_100m) !== 0) {
+    into.push(cableWarning('channel_over_100m', 'error', deviceId, () =>
+      `The cable run is ${formatLength(lengthM, u)} (${formatLength(channelM, u)} with cords), longer than the ${formatLength(CHANNEL_LIMITS.channelMaxM, u)} a network cable may be. Put a small switch closer or find a shorter route.`));
+  }
+  if ((bits & W.link_over_90m) !== 0) {
+    into.push(cableWarning('link_over_90m', 'warning', deviceId, () =>
+      `The fixed cable is ${formatLength(lengthM, u)}, more than the ${formatLength(CHANNEL_LIMITS.permanentLinkMaxM, u)} the cabling standard allows for it; it works only with very short cords and should be tested after installation.`));
+  }
+  if ((bits & W.cca_cable) !== 0) into.push({ code: 'cca_cable', severity: 'error', deviceId, message: CCA_MESSAGE });
+  if ((bits & W.thin_gauge) !== 0) into.push({ code: 'thin_gauge', severity: 'warning', deviceId, message: THIN_GAUGE_MESSAGE });
+  if ((bits & W.cable_cannot_carry) !== 0) {
+    const poeClass = f.poeClass;
+    const cls = POE_CLASSES[poeClass];
+    const pdPowerW = f.classPdPowerW;
+    const pdVoltageV = f.classPdVoltageV;
+    const pdVoltageMinV = f.pdVoltageMinV;
+    into.push(cableWarning('cable_cannot_carry', 'error', deviceId, () =>
+      `This cable cannot guarantee Class ${poeClass} power: at full load the device would get ${formatWatts(pdPowerW)} at ${formatVolts(pdVoltageV)} (it needs ${formatWatts(cls.pdMaxW)} and at least ${formatVolts(pdVoltageMinV)}). A shorter run or thicker solid-copper cable fixes this.`));
+  }
+  if ((bits & W.cat6a_recommended) !== 0) {
+    into.push({ code: 'cat6a_recommended', severity: 'info', deviceId, message: CAT6A_MESSAGE[run.category] });
+  }
+  if ((bits & W.nec_725_144) !== 0) into.push({ code: 'nec_725_144', severity: 'info', deviceId, message: NEC_MESSAGE });
+  if ((bits & W.passive_voltage_drop) !== 0) {
+    const volts = o.passive!.volts;
+    const dropV = f.passiveDropV;
+    const dropFraction = f.passiveDropFraction;
+    into.push(cableWarning('passive_voltage_drop', 'warning', deviceId, () =>
+      `The cable drops about ${formatVolts(dropV)} of the ${formatVolts(volts)} passive supply (${formatPercent(dropFraction)}); the device may reset under load. Check its allowed input range.`));
+  }
 }
 
 /**

@@ -7,7 +7,8 @@ import type { UnitSystem } from '../units';
 import { roundTo } from '../units';
 import type { PortAssignment, UnassignedDevice } from './assign-ports';
 import { evaluateBatteriesWith, type BatteryEvaluation, type OutageReport } from './battery';
-import { deferredField } from './deferred-text';
+import { deferredField, deferredList } from './deferred-text';
+import { countBySeverity } from './device-flags';
 import { buildPlanContext } from './plan-context';
 import { type DeviceEvaluation, type PlanWarning, type Recommendation, type Severity } from './result-types';
 import { evaluateSwitchWith, type SwitchEvaluation } from './switch-budget';
@@ -99,7 +100,6 @@ const UNASSIGNED_CODE: Readonly<Record<UnassignedDevice['code'], string>> = {
   pinned_source_full: 'unassigned_pinned_source_full',
 };
 
-const CATEGORY_INDEX: Readonly<Record<CableCategory, number>> = { cat5e: 0, cat6: 1, cat6a: 2 };
 
 /** Order length for one drop: run + 10 % + 3 m service loop ([PRACTICE], common practice, no source). */
 export function orderLengthM(runM: number): number {
@@ -125,82 +125,116 @@ export function evaluateSite(site: Site, devices?: readonly DeviceEvaluation[]):
   const byRecommendation: Record<Recommendation, number> = {
     poe: 0, poe_splitter: 0, existing_outlet: 0, new_outlet: 0, cannot_power: 0,
   };
+  const warningCounts: Record<Severity, number> = { info: 0, warning: 0, error: 0 };
   let reservedW = 0;
   let expectedW = 0;
-  const splitterGroups = new Map<string, { outputVolts: number; ratingAmps: number; plug: string; maxPoeClass: number; deviceIds: string[] }>();
+  // Splitters grouped by plug, output volts and rating (maps keyed by figures, not by a written key).
+  type Group = { outputVolts: number; ratingAmps: number; plug: string; maxPoeClass: number; deviceIds: string[] };
+  const splitterGroups: Group[] = [];
+  const groupIndex = new Map<string, Map<number, Map<number, Group>>>();
   const newOutlets: NewOutletRow[] = [];
-  // Indexed by category × cca, already in display order.
+  // Indexed by the run's kind (category × cca), already in display order.
   const cableGroups: ({ category: CableCategory; cca: boolean; runs: number; runM: number; slackM: number } | undefined)[] = [];
-  const cableRuns: CableScheduleRow[] = [];
   let highPowerRuns = 0;
   let mustStayUp = 0;
-  const warnings: PlanWarning[] = [];
 
-  for (const e of ctx.devices) {
-    byRecommendation[e.recommendation]++;
-    if (e.mustStayUp) mustStayUp++;
-    for (const w of e.warnings) warnings.push(w);
-    if (e.poe !== null) {
-      reservedW += e.poe.reservedW;
-      expectedW += e.poe.expectedPseW;
-      if (e.poe.poeType >= 3) highPowerRuns++;
+  const plan = ctx.plan;
+  const siteDevices = site.devices;
+  for (let i = 0; i < plan.size; i++) {
+    const recommendation = plan.recommendation(i);
+    byRecommendation[recommendation]++;
+    const critical = plan.mustStayUp(i);
+    if (critical) mustStayUp++;
+    if (!plan.fromResults) countBySeverity(plan.warningBits[i], warningCounts);
+    if (plan.hasPoe(i)) {
+      reservedW += plan.reservedW[i];
+      expectedW += plan.expectedPseW[i];
+      if (plan.poeType[i] >= 3) highPowerRuns++;
     }
-    const s = e.splitter;
-    if (e.recommendation === 'poe_splitter' && s !== null) {
-      const key = `${s.outputVolts}|${s.ratingAmps}|${s.plug.label}`;
-      let g = splitterGroups.get(key);
+    if (recommendation === 'poe_splitter' && plan.splitterClass[i] >= 0) {
+      const outputVolts = plan.splitterVolts[i];
+      const ratingAmps = plan.splitterRatingAmps[i];
+      const label = plan.plug[i]!.label;
+      const poeClass = plan.splitterClass[i];
+      let byVolts = groupIndex.get(label);
+      if (byVolts === undefined) groupIndex.set(label, (byVolts = new Map()));
+      let byAmps = byVolts.get(outputVolts);
+      if (byAmps === undefined) byVolts.set(outputVolts, (byAmps = new Map()));
+      let g = byAmps.get(ratingAmps);
       if (g === undefined) {
-        g = { outputVolts: s.outputVolts, ratingAmps: s.ratingAmps, plug: s.plug.label, maxPoeClass: s.poeClass, deviceIds: [] };
-        splitterGroups.set(key, g);
+        g = { outputVolts, ratingAmps, plug: label, maxPoeClass: poeClass, deviceIds: [] };
+        byAmps.set(ratingAmps, g);
+        splitterGroups.push(g);
       }
-      if (s.poeClass > g.maxPoeClass) g.maxPoeClass = s.poeClass;
-      g.deviceIds.push(e.deviceId);
+      if (poeClass > g.maxPoeClass) g.maxPoeClass = poeClass;
+      g.deviceIds.push(siteDevices[i].id);
     }
-    if (e.recommendation === 'new_outlet' && e.outlet !== null) {
-      newOutlets.push({
-        deviceId: e.deviceId, deviceName: e.name, roomId: e.roomId, roomName: roomName.get(e.roomId) ?? e.roomId,
-        via: e.outlet.via, mustStayUp: e.mustStayUp,
-      });
+    if (recommendation === 'new_outlet') {
+      const via = plan.outletVia(i);
+      if (via !== null) {
+        const d = siteDevices[i];
+        newOutlets.push({
+          deviceId: d.id, deviceName: d.name, roomId: d.roomId, roomName: roomName.get(d.roomId) ?? d.roomId, via, mustStayUp: critical,
+        });
+      }
     }
-    const c = e.cable;
-    if (c !== null) {
-      const gi = CATEGORY_INDEX[c.category] * 2 + (c.cca ? 1 : 0);
+    if (plan.hasRun(i)) {
+      const gi = plan.runKind[i];
+      const lengthM = plan.runLengthM[i];
       let g = cableGroups[gi];
-      if (g === undefined) cableGroups[gi] = g = { category: c.category, cca: c.cca, runs: 0, runM: 0, slackM: 0 };
-      const order = orderLengthM(c.lengthM);
+      if (g === undefined) cableGroups[gi] = g = { category: plan.runCategory(i), cca: plan.runCca(i), runs: 0, runM: 0, slackM: 0 };
       g.runs++;
-      g.runM += c.lengthM;
-      g.slackM += order - c.lengthM;
-      cableRuns.push({
-        deviceId: e.deviceId, category: c.category, gauge: c.gauge, cca: c.cca,
-        lengthM: c.lengthM, channelM: c.channelM, orderM: roundTo(order, 1), withinChannel: c.withinChannel,
-        loopOhm: c.loopOhm, ok: c.ok,
-      });
+      g.runM += lengthM;
+      g.slackM += orderLengthM(lengthM) - lengthM;
     }
   }
+  const cableRuns = deferredList<CableScheduleRow>((into) => {
+    for (let i = 0; i < plan.size; i++) {
+      if (!plan.hasRun(i)) continue;
+      const lengthM = plan.runLengthM[i];
+      into.push({
+        deviceId: siteDevices[i].id, category: plan.runCategory(i), gauge: plan.runGauge[i] as AwgGauge, cca: plan.runCca(i),
+        lengthM, channelM: plan.runChannelM[i], orderM: roundTo(orderLengthM(lengthM), 1), withinChannel: plan.runWithinChannel(i),
+        loopOhm: plan.runLoopOhm[i], ok: plan.runOk(i),
+      });
+    }
+  });
 
-  for (const w of ctx.assignment.warnings) warnings.push(w);
-  for (const u of ctx.assignment.unassigned) {
-    const name = ctx.deviceById.get(u.deviceId)!.name;
-    warnings.push(deferredField<PlanWarning, 'message'>(
-      { code: UNASSIGNED_CODE[u.code], severity: 'error', deviceId: u.deviceId, message: '' }, 'message', () => `${name}: ${u.reason}`));
-  }
-  for (const s of switches) for (const w of s.warnings) warnings.push(w);
-  for (const b of batteryReport.batteries) for (const w of b.warnings) warnings.push(w);
-  for (const w of batteryReport.outage.warnings) warnings.push(w);
-  if (highPowerRuns > TSB_184_A.maxCablesPerBundle) {
-    warnings.push({
+  // The site's warnings, in order: each device's, the port assignment's, each switch's, each
+  // battery's and the outage's, then the site's own. They are counted now and listed on first read.
+  if (plan.fromResults) for (const e of ctx.devices) for (const w of e.warnings) warningCounts[w.severity]++;
+  for (const w of ctx.assignment.warnings) warningCounts[w.severity]++;
+  const unassignedCount = ctx.unassignedDevice.length;
+  warningCounts.error += unassignedCount;
+  for (const s of switches) for (const w of s.warnings) warningCounts[w.severity]++;
+  for (const b of batteryReport.batteries) for (const w of b.warnings) warningCounts[w.severity]++;
+  warningCounts.warning += batteryReport.outage.criticalDown.length; // each one's warning
+  const bundleWarning: PlanWarning | null = highPowerRuns > TSB_184_A.maxCablesPerBundle
+    ? {
       code: 'bundle_size', severity: 'warning',
       message: `${highPowerRuns} high-power (802.3bt) runs: split them into loose bundles of at most ${TSB_184_A.maxCablesPerBundle} cables (TSB-184-A).`,
+    }
+    : null;
+  if (bundleWarning !== null) warningCounts[bundleWarning.severity]++;
+  const warnings = deferredList<PlanWarning>((into) => {
+    for (const e of ctx.devices) for (const w of e.warnings) into.push(w);
+    for (const w of ctx.assignment.warnings) into.push(w);
+    ctx.assignment.unassigned.forEach((u, k) => {
+      const name = site.devices[ctx.unassignedDevice[k]].name;
+      into.push(deferredField<PlanWarning, 'message'>(
+        { code: UNASSIGNED_CODE[u.code], severity: 'error', deviceId: u.deviceId, message: '' }, 'message', () => `${name}: ${u.reason}`));
     });
-  }
+    for (const s of switches) for (const w of s.warnings) into.push(w);
+    for (const b of batteryReport.batteries) for (const w of b.warnings) into.push(w);
+    for (const w of batteryReport.outage.warnings) into.push(w);
+    if (bundleWarning !== null) into.push(bundleWarning);
+  });
 
   // Additional switches for unassigned devices: pack them (next fit, largest first)
   // into switches like the largest one in the plan, or our 8-port / 120 W placeholder.
   let additionalNeeded = 0;
   let additionalBasis: string | null = null;
-  const unassignedPoe = ctx.assignment.unassigned;
-  if (unassignedPoe.length > 0) {
+  if (unassignedCount > 0) {
     let ref: { ports: number; budgetW: number; name: string | null } = { ...PLANNING.placeholderSwitch.value, name: null };
     let found = false;
     for (const s of ctx.poeSources) {
@@ -210,10 +244,11 @@ export function evaluateSite(site: Site, devices?: readonly DeviceEvaluation[]):
       }
     }
     const byClass = site.settings.budgetBasis === 'class';
-    const demands = unassignedPoe.map((u) => {
-      const p = ctx.deviceById.get(u.deviceId)!.poe!;
-      return byClass ? p.reservedW : p.expectedPseW;
-    }).sort((a, b) => b - a);
+    const demands = new Float64Array(unassignedCount);
+    ctx.unassignedDevice.forEach((i, k) => {
+      demands[k] = byClass ? plan.reservedW[i] : plan.expectedPseW[i];
+    });
+    demands.sort().reverse();
     const limit = ref.budgetW * site.settings.planningCeiling;
     let ports = 0;
     let watts = 0;
@@ -229,9 +264,6 @@ export function evaluateSite(site: Site, devices?: readonly DeviceEvaluation[]):
     additionalBasis = `${ref.ports}-port switches with a ${ref.budgetW} W budget${ref.name ? ` (like "${ref.name}")` : ''}, of a PoE type high enough for the devices left over`;
   }
 
-  const warningCounts: Record<Severity, number> = { info: 0, warning: 0, error: 0 };
-  for (const w of warnings) warningCounts[w.severity]++;
-
   const cautions: Caution[] = SITE_CAUTION_IDS.map((id) => CAUTIONS[id]);
   if (site.batteries.length > 0) cautions.push(CAUTIONS.battery);
 
@@ -245,16 +277,16 @@ export function evaluateSite(site: Site, devices?: readonly DeviceEvaluation[]):
   }
 
   const splitters: SplitterGroup[] = [];
-  for (const g of splitterGroups.values()) {
+  for (const g of splitterGroups) {
     splitters.push({ outputVolts: g.outputVolts, ratingAmps: g.ratingAmps, plug: g.plug, count: g.deviceIds.length, maxPoeClass: g.maxPoeClass, deviceIds: g.deviceIds });
   }
   splitters.sort((a, b) => a.outputVolts - b.outputVolts || a.ratingAmps - b.ratingAmps || (a.plug < b.plug ? -1 : a.plug > b.plug ? 1 : 0));
 
-  let criticalUp = 0;
-  for (const o of batteryReport.outage.devices) if (o.mustStayUp && o.staysUp) criticalUp++;
+  // Every must-stay-up device either stays up or is listed as going down.
+  const criticalUp = mustStayUp - batteryReport.outage.criticalDown.length;
 
   const summary: SiteSummary = {
-    deviceCount: ctx.devices.length,
+    deviceCount: plan.size,
     byRecommendation,
     poeWatts: { reservedW: roundTo(reservedW, 3), expectedW: roundTo(expectedW, 3) },
     switches: {
@@ -264,7 +296,7 @@ export function evaluateSite(site: Site, devices?: readonly DeviceEvaluation[]):
       additionalNeeded,
       additionalBasis,
     },
-    unassignedCount: unassignedPoe.length,
+    unassignedCount,
     splitters,
     newOutlets,
     cable,

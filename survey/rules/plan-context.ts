@@ -1,30 +1,49 @@
 import type { BatteryBackup } from '../model/battery';
 import { isPoeSource, type PoeSource, type PowerSource } from '../model/power-source';
 import type { Site } from '../model/site';
-import { assignPortsWith, type PortAssignment, type PortPlacement } from './assign-ports';
+import { assignPortsWith, type PortAssignment } from './assign-ports';
+import { deferredList } from './deferred-text';
 import { evaluateDevice } from './recommend-device';
 import type { DeviceEvaluation } from './result-types';
+import { planOfResults, planSite, type SitePlan } from './site-plan';
 
 /**
- * Everything evaluated once per site and shared by the switch, battery and
- * summary rules, so that the whole evaluation stays linear in the number of devices.
+ * Everything worked out once per site and shared by the switch, battery and summary rules,
+ * so that the whole evaluation stays linear in the number of devices.
+ *
+ * The site rules read the devices' plans (site-plan.ts: decisions and figures, as columns).
+ * The devices' full results, with their words, are worked out when `devices` is first read,
+ * so a site must not be changed after it is evaluated (sites are values everywhere in Dropwise).
  */
 export interface PlanContext {
   readonly site: Site;
+  /** Every device's plan, by site index. */
+  readonly plan: SitePlan;
+  /** One full result per site device, in site order (written on first read when not given). */
   readonly devices: readonly DeviceEvaluation[];
-  readonly deviceById: ReadonlyMap<string, DeviceEvaluation>;
   readonly sourceById: ReadonlyMap<string, PowerSource>;
   readonly poeSources: readonly PoeSource[];
   readonly batteryBySource: ReadonlyMap<string, BatteryBackup>;
   readonly assignment: PortAssignment;
-  readonly placementsBySource: ReadonlyMap<string, readonly PortPlacement[]>;
-  readonly placementByDevice: ReadonlyMap<string, PortPlacement>;
+  /** For each device (site index): the index in `poeSources` of its source (−1 for none), and its port. */
+  readonly sourceOf: Int32Array;
+  readonly portOf: Int32Array;
+  /** 1 for each device placed on the port it is pinned to. */
+  readonly pinned: Uint8Array;
+  /** The site index of the device of each entry of `assignment.unassigned`. */
+  readonly unassignedDevice: readonly number[];
+  /** The devices on each PoE source, by port: `onSource.subarray(sourceStart[s], sourceStart[s + 1])`. */
+  readonly sourceStart: Int32Array;
+  readonly onSource: Int32Array;
 }
 
 export function buildPlanContext(site: Site, devices?: readonly DeviceEvaluation[]): PlanContext {
-  const evals = devices ?? site.devices.map((d) => evaluateDevice(d, site));
-  const deviceById = new Map<string, DeviceEvaluation>();
-  for (const e of evals) deviceById.set(e.deviceId, e);
+  const settings = site.settings;
+  const plan = devices === undefined ? planSite(site.devices, settings) : planOfResults(devices);
+  // The rules are pure, so a device's full result is the same whenever it is worked out.
+  const evaluations = devices ?? deferredList<DeviceEvaluation>((into) => {
+    for (const d of site.devices) into.push(evaluateDevice(d, site));
+  });
   const sourceById = new Map<string, PowerSource>();
   const poeSources: PoeSource[] = [];
   for (const s of site.powerSources) {
@@ -34,26 +53,41 @@ export function buildPlanContext(site: Site, devices?: readonly DeviceEvaluation
   const batteryBySource = new Map<string, BatteryBackup>();
   for (const b of site.batteries) for (const id of b.feeds) batteryBySource.set(id, b);
 
-  const assignment = assignPortsWith(site, evals, sourceById, poeSources, batteryBySource);
-  const placementsBySource = new Map<string, PortPlacement[]>();
-  const placementByDevice = new Map<string, PortPlacement>();
-  for (const p of assignment.placements) {
-    let list = placementsBySource.get(p.sourceId);
-    if (list === undefined) {
-      list = [];
-      placementsBySource.set(p.sourceId, list);
+  const work = assignPortsWith(site, plan, sourceById, poeSources, batteryBySource);
+
+  // Group the placed devices by source (counting sort, in placement order), then order each source's by port.
+  const sourceOf = work.sourceOf;
+  const portOf = work.portOf;
+  const sourceStart = new Int32Array(poeSources.length + 1);
+  for (let i = 0; i < sourceOf.length; i++) if (sourceOf[i] >= 0) sourceStart[sourceOf[i] + 1]++;
+  for (let s = 0; s < poeSources.length; s++) sourceStart[s + 1] += sourceStart[s];
+  const onSource = new Int32Array(work.placedOrder.length);
+  const fill = sourceStart.slice(0, poeSources.length);
+  for (const i of work.placedOrder) onSource[fill[sourceOf[i]]++] = i;
+  for (let s = 0; s < poeSources.length; s++) {
+    // Insertion sort: a source's devices are few, and mostly in port order already.
+    for (let k = sourceStart[s] + 1; k < sourceStart[s + 1]; k++) {
+      const i = onSource[k];
+      let j = k - 1;
+      while (j >= sourceStart[s] && portOf[onSource[j]] > portOf[i]) {
+        onSource[j + 1] = onSource[j];
+        j--;
+      }
+      onSource[j + 1] = i;
     }
-    list.push(p);
-    placementByDevice.set(p.deviceId, p);
   }
-  for (const list of placementsBySource.values()) list.sort((a, b) => a.port - b.port);
   return {
-    site, devices: evals, deviceById, sourceById, poeSources, batteryBySource,
-    assignment, placementsBySource, placementByDevice,
+    site, plan, devices: evaluations, sourceById, poeSources, batteryBySource,
+    assignment: work.assignment, sourceOf, portOf, pinned: work.pinned, unassignedDevice: work.unassignedDevice, sourceStart, onSource,
   };
 }
 
 /** A source is on battery if a battery in the plan feeds it, or the designer flagged it. */
 export function sourceOnBattery(ctx: PlanContext, s: PowerSource): boolean {
   return ctx.batteryBySource.has(s.id) || s.onBattery;
+}
+
+/** The index of a PoE source in the context's `poeSources`. */
+export function poeSourceIndex(ctx: PlanContext, src: PoeSource): number {
+  return ctx.poeSources.indexOf(src);
 }

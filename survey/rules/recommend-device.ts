@@ -1,23 +1,24 @@
 import { BARREL_SIZES, findBarrelSize, type BarrelSize } from '../standards/barrel-sizes';
-import { CAUTIONS, type Caution } from '../standards/cautions';
+import type { Caution } from '../standards/cautions';
 import { PLANNING } from '../standards/planning-defaults';
 import { classForPdPower, POE_CLASSES, type PoeClass } from '../standards/poe-classes';
-import { MAX_PD_POWER_W, POE_TYPES, type PoeType } from '../standards/poe-types';
+import { MAX_PD_POWER_W, POE_TYPES } from '../standards/poe-types';
 import { usbLevelFor } from '../standards/usb-power';
-import { powerNeedWatts, type Device, type DcBarrelInput } from '../model/device';
+import { powerNeedWatts, type CableRun, type DcBarrelInput, type Device } from '../model/device';
 import type { SiteSettings } from '../model/site';
 import { formatLength, formatNumber, formatWatts, roundTo, type UnitSystem } from '../units';
-import { checkCableRun, deliveredReason, type CableRunOptions, type CableRunResult } from './cable-run';
+import {
+  addCableWarnings, cableRunEvaluation, checkCableRun, deliveredReason, measureCableRun, measureRun, RunFigures,
+  type CableRunOptions, type CableRunResult,
+} from './cable-run';
 import { deferredField, deferredListOf } from './deferred-text';
-import { DeviceReasons, type DeviceFacts, type NoPoe, type ReasonPath } from './device-reasons';
+import { C, cautionsOf, W, WARNING_SEVERITY, type DeviceWarningCode } from './device-flags';
+import { DevicePlan, noPoeOf, outletPlanOf, poePlanOf, splitterPlanOf } from './device-plan';
+import { DeviceReasons, type DeviceFacts, type ReasonPath } from './device-reasons';
 import { recommendationLabel } from './labels';
 import { drawForPdLoad } from './poe-loss';
-import type {
-  CableRunEvaluation, DeviceEvaluation, OutletPlan, PlanWarning, PlugSpec, PoePlan, Recommendation, SplitterPlan,
-} from './result-types';
-import {
-  MICRO_USB_PLUG, minimumAmps, plugForBarrel, sizeSplitter, splitterRatingAmps, TERMINAL_PLUG, USB_C_PLUG,
-} from './splitter';
+import type { CableRunEvaluation, DeviceEvaluation, OutletPlan, PlanWarning, PlugSpec, PoePlan, Recommendation } from './result-types';
+import { MICRO_USB_PLUG, minimumAmps, plugForBarrel, splitterRatingAmps, TERMINAL_PLUG, USB_C_PLUG } from './splitter';
 /*
  * Decision policy — how each device is powered.
  *
@@ -56,8 +57,8 @@ import {
  */
 
 
-// Fixed texts are written once; the reasons are written when first read (device-reasons.ts),
-// and so are the warnings that quote the device's own figures.
+// Fixed texts are written once; the reasons and the warnings that quote the device's own
+// figures are written when first read.
 const RUN_MISSING = 'The cable run to the closet has not been captured yet (a gap for the next walk); PoE was checked against the standard\'s worst-case cable.';
 const FINISHED_SURFACES = 'Walls and ceilings here are finished with no access above or below: expect surface raceway or patching for new cable or a new outlet.';
 const POLARITY_UNKNOWN = 'The plug polarity was not recorded: read the polarity symbol on the device or its adapter before connecting a splitter (centre-positive is common, not universal).';
@@ -81,27 +82,6 @@ export interface DeviceContext {
   readonly settings: SiteSettings;
 }
 
-/**
- * The warnings and cautions of the device being worked out. One device is worked out at a
- * time, so the lists are reused and the result gets exact-size copies of them (a fresh list
- * per device would grow to room for 17 items at its first push).
- */
-const gathered: { readonly warnings: PlanWarning[]; readonly cautions: Caution[] } = { warnings: [], cautions: [] };
-
-function addCaution(cautions: Caution[], c: Caution): void {
-  if (!cautions.includes(c)) cautions.push(c);
-}
-
-/** A warning whose message is fixed text. */
-function warn(warnings: PlanWarning[], deviceId: string, code: string, severity: PlanWarning['severity'], message: string): void {
-  warnings.push({ code, severity, message, deviceId });
-}
-
-/** A warning whose message is written when first read. */
-function warnLater(warnings: PlanWarning[], deviceId: string, code: string, severity: PlanWarning['severity'], write: () => string): void {
-  warnings.push(deferredField<PlanWarning, 'message'>({ code, severity, message: '', deviceId }, 'message', write));
-}
-
 export interface PoeAttempt {
   readonly works: boolean;
   readonly plan: PoePlan | null;
@@ -110,26 +90,51 @@ export interface PoeAttempt {
   readonly whyNot: string | null;
 }
 
-/** `PoeAttempt` as the device rules use it: the run's warnings and cautions went to the caller's lists. */
-interface PoeTry {
-  readonly works: boolean;
-  readonly plan: PoePlan;
-  readonly cable: CableRunEvaluation | null;
-  readonly whyNot: string | null;
-}
+/**
+ * The run being measured, and the outcome of the last PoE attempt. Devices are planned one at
+ * a time, so these records are reused and planning a device makes no objects.
+ */
+const measuring = new RunFigures();
+const attempt = {
+  /** PoE gets through (or no run was captured: the standard's worst-case run is assumed). */
+  works: true,
+  whyNot: null as string | null,
+  expectedPseW: 0,
+  cableLossW: 0,
+  warnings: 0,
+  cautions: 0,
+};
 
 /** Try to power `pdLoadW` over the device's run with a port of `poeClass` (also used for designer decisions). */
 export function attemptPoe(device: Device, poeClass: PoeClass, pdLoadW: number, settings: SiteSettings): PoeAttempt {
-  const warnings: PlanWarning[] = [];
-  const cautions: Caution[] = [];
-  const t = tryPoe(device, poeClass, pdLoadW, settings, warnings, cautions);
-  const c = t.cable;
+  tryPoe(device, poeClass, pdLoadW, settings);
+  const cls = POE_CLASSES[poeClass];
+  const plan: PoePlan = {
+    poeClass,
+    poeType: cls.minType,
+    standard: POE_TYPES[cls.minType].standardName,
+    pairs: cls.pairs,
+    reservedW: cls.psePowerW,
+    pdLoadW: roundTo(pdLoadW, 3),
+    expectedPseW: attempt.expectedPseW,
+    cableLossW: attempt.cableLossW,
+  };
+  const works = attempt.works;
+  const whyNot = attempt.whyNot;
+  const run = device.run;
   let cable: CableRunResult | null = null;
-  if (c !== null) {
-    const reason = deliveredReason(c, settings.units);
-    cable = { evaluation: c, reasons: reason === null ? [] : [reason], warnings, cautions };
+  if (run !== undefined) {
+    const warnings: PlanWarning[] = [];
+    const cautions: Caution[] = [];
+    const evaluation = checkCableRun(run, poeOptions(device, settings, poeClass, pdLoadW), warnings, cautions);
+    const reason = deliveredReason(evaluation, settings.units);
+    cable = { evaluation, reasons: reason === null ? [] : [reason], warnings, cautions };
   }
-  return { works: t.works, plan: t.plan, cable, whyNot: t.whyNot };
+  return { works, plan, cable, whyNot };
+}
+
+function isOutdoorRun(device: Device): boolean {
+  return device.outdoor || device.cableAccess === 'exterior';
 }
 
 /** The cable check options for a device's run (one object shape for every check). */
@@ -141,51 +146,95 @@ function cableOptions(device: Device, settings: SiteSettings, poe: CableRunOptio
     units: settings.units,
     poe,
     passive,
-    outdoor: device.outdoor || device.cableAccess === 'exterior',
+    outdoor: isOutdoorRun(device),
   };
 }
 
-function tryPoe(
-  device: Device, poeClass: PoeClass, pdLoadW: number, settings: SiteSettings, warnings: PlanWarning[], cautions: Caution[],
-): PoeTry {
-  const cls = POE_CLASSES[poeClass];
-  const poeType: PoeType = cls.minType;
-  const spec = POE_TYPES[poeType];
+function poeOptions(device: Device, settings: SiteSettings, poeClass: PoeClass, pdLoadW: number): CableRunOptions {
+  return cableOptions(device, settings, { poeClass, poeType: POE_CLASSES[poeClass].minType, pdLoadW }, null);
+}
+
+/** Check the device's run into `measuring`: for PoE at `poeClass` (−1 for none) or passive PoE at `passiveVolts` (0 for none). */
+function measure(device: Device, run: CableRun, settings: SiteSettings, poeClass: number, pdLoadW: number, passiveVolts: number, passiveLoadW: number): RunFigures {
+  const poeType = poeClass >= 0 ? POE_CLASSES[poeClass as PoeClass].minType : 1;
+  return measureRun(run, settings.cableTemperatureC, settings.cordAllowanceM, isOutdoorRun(device),
+    poeClass, poeType, pdLoadW, passiveVolts, passiveLoadW, measuring);
+}
+
+/** Keep the run's figures (as measured) in the plan. */
+function keepRun(p: DevicePlan, run: CableRun | undefined, f: RunFigures | null): void {
+  if (run === undefined || f === null) {
+    p.hasRun = false;
+    return;
+  }
+  p.hasRun = true;
+  p.runCategory = run.category;
+  p.runCca = run.cca;
+  p.runLengthM = run.lengthM;
+  p.runChannelM = roundTo(f.channelM, 2);
+  p.runLoopOhm = roundTo(f.loopOhm, 4);
+  p.runGauge = f.gauge;
+  p.runWithinChannel = f.withinChannel;
+  p.runOk = f.ok;
+  p.warningBits |= f.warnings;
+  p.cautionBits |= f.cautions;
+}
+
+/** Try PoE at `poeClass` for `pdLoadW` over the device's run; the outcome is in `attempt`, the run's figures in `measuring`. */
+function tryPoe(device: Device, poeClass: PoeClass, pdLoadW: number, settings: SiteSettings): RunFigures | null {
   const run = device.run;
-  let cable: CableRunEvaluation | null = null;
-  let expectedPseW: number;
-  let lossW: number;
-  if (run !== undefined) {
-    cable = checkCableRun(run, cableOptions(device, settings, { poeClass, poeType, pdLoadW }, null), warnings, cautions);
-    const exp = cable.poe!.atExpectedLoad;
-    expectedPseW = exp.psePowerW;
-    lossW = exp.lossW;
-  } else {
+  attempt.works = true;
+  attempt.whyNot = null;
+  if (run === undefined) {
+    const cls = POE_CLASSES[poeClass];
+    const spec = POE_TYPES[cls.minType];
     const worst = drawForPdLoad(pdLoadW, spec.pseVoltageMinV, spec.loopResistanceOhm, cls.pairs);
-    expectedPseW = roundTo(worst.psePowerW, 3);
-    lossW = roundTo(worst.lossW, 3);
+    attempt.expectedPseW = roundTo(worst.psePowerW, 3);
+    attempt.cableLossW = roundTo(worst.lossW, 3);
+    attempt.warnings = 0;
+    attempt.cautions = 0;
+    return null;
   }
-  const plan: PoePlan = {
-    poeClass,
-    poeType,
-    standard: spec.standardName,
-    pairs: cls.pairs,
-    reservedW: cls.psePowerW,
-    pdLoadW: roundTo(pdLoadW, 3),
-    expectedPseW,
-    cableLossW: lossW,
-  };
-  if (cable !== null && !cable.ok) {
-    return { works: false, plan, cable, whyNot: !cable.withinChannel ? TOO_LONG[settings.units] : CANNOT_CARRY };
+  const f = measure(device, run, settings, poeClass, pdLoadW, 0, 0);
+  attempt.expectedPseW = roundTo(f.loadPsePowerW, 3);
+  attempt.cableLossW = roundTo(f.loadLossW, 3);
+  attempt.warnings = f.warnings;
+  attempt.cautions = f.cautions;
+  if (!f.ok) {
+    attempt.works = false;
+    attempt.whyNot = !f.withinChannel ? TOO_LONG[settings.units] : CANNOT_CARRY;
   }
-  return { works: true, plan, cable, whyNot: null };
+  return f;
 }
 
-/** Cable checks for a device whose run carries data only (outlet-powered devices). */
-function dataOnlyCable(device: Device, settings: SiteSettings): CableRunEvaluation | null {
+/** The device's run carries data only (outlet-powered devices): check it into the plan. */
+function dataOnly(p: DevicePlan, device: Device, settings: SiteSettings): void {
   const run = device.run;
-  if (run === undefined) return null;
-  return checkCableRun(run, cableOptions(device, settings, null, null), gathered.warnings, gathered.cautions);
+  p.check = 'data';
+  keepRun(p, run, run === undefined ? null : measure(device, run, settings, -1, 0, 0, 0));
+}
+
+/** The device is fed from an outlet at the device. */
+function onOutlet(p: DevicePlan, recommendation: Recommendation, path: ReasonPath, via: OutletPlan['via'], electrician: boolean): void {
+  p.recommendation = recommendation;
+  p.path = path;
+  p.outletVia = via;
+  p.outletAtCloset = false;
+  p.electrician = electrician;
+  if (electrician) p.cautionBits |= C.mains_electrician;
+}
+
+/** Put the outcome of the last PoE attempt into the plan as its port. */
+function keepPort(p: DevicePlan, run: CableRun | undefined, poeClass: PoeClass, pdLoadW: number, f: RunFigures | null): void {
+  p.poeClass = poeClass;
+  p.pdLoadW = pdLoadW;
+  p.expectedPseW = attempt.expectedPseW;
+  p.cableLossW = attempt.cableLossW;
+  p.check = 'poe';
+  p.checkClass = poeClass;
+  p.checkLoadW = pdLoadW;
+  p.poeCable = true;
+  keepRun(p, run, f);
 }
 
 interface SplitterSpec {
@@ -194,7 +243,9 @@ interface SplitterSpec {
   readonly usbLevel: string | null;
 }
 
-/** What a splitter must put out for an adapter-powered device. */
+const MICRO_USB_OVER_LEVELS: SplitterSpec = { volts: 5, plug: MICRO_USB_PLUG, usbLevel: null };
+
+/** What a splitter must put out for an adapter-powered device; null when no splitter can. */
 function splitterSpecFor(device: Device, needW: number): SplitterSpec | null {
   const input = device.input;
   switch (input.type) {
@@ -206,12 +257,8 @@ function splitterSpecFor(device: Device, needW: number): SplitterSpec | null {
     case 'usb_c': {
       const level = usbLevelFor(input.type, needW);
       if (level === null) {
-        if (input.type === 'micro_usb') {
-          warnLater(gathered.warnings, device.id, 'usb_above_levels', 'warning', () =>
-            `It draws ${formatWatts(needW)}, more than micro-USB normally supplies (7.5 W at 1.5 A); it needs a 5 V supply rated for that current and a short, thick cable.`);
-          return { volts: 5, plug: MICRO_USB_PLUG, usbLevel: null };
-        }
-        return null; // above USB PD 100 W: no splitter
+        // Above the USB levels: micro-USB still gets a 5 V supply (with a warning); USB-C above USB PD 100 W gets none.
+        return input.type === 'micro_usb' ? MICRO_USB_OVER_LEVELS : null;
       }
       return { volts: level.volts, plug: input.type === 'usb_c' ? USB_C_PLUG : MICRO_USB_PLUG, usbLevel: level.name };
     }
@@ -220,55 +267,294 @@ function splitterSpecFor(device: Device, needW: number): SplitterSpec | null {
   }
 }
 
-function barrelChecks(device: Device, input: DcBarrelInput): void {
-  const warnings = gathered.warnings;
+/** The warnings of a barrel plug on a splitter. */
+function barrelWarnings(input: DcBarrelInput): number {
   const size = findBarrelSize(input.outerMm, input.innerMm);
-  addCaution(gathered.cautions, CAUTIONS.barrel_plug);
-  if (size !== undefined) {
-    const lookalike = LOOKALIKE_WARNING.get(size);
-    if (lookalike !== undefined) warn(warnings, device.id, 'barrel_lookalike', 'info', lookalike);
-  }
-  if (input.polarity === 'unknown') warn(warnings, device.id, 'polarity_unknown', 'warning', POLARITY_UNKNOWN);
+  let bits = 0;
+  if (size !== undefined && LOOKALIKE_WARNING.has(size)) bits |= W.barrel_lookalike;
+  if (input.polarity === 'unknown') bits |= W.polarity_unknown;
   const eiaj = size?.eiaj;
-  const volts = input.volts;
-  if (size !== undefined && eiaj !== undefined && (volts < eiaj.minV || volts > eiaj.maxV)) {
-    warnLater(warnings, device.id, 'barrel_voltage_key', 'warning', () =>
-      `A ${size.outerMm}×${size.innerMm} mm plug is the ${eiaj.code} size, keyed for ${eiaj.minV}–${eiaj.maxV} V, but the device says ${formatNumber(volts)} V: check the label.`);
-  }
+  if (eiaj !== undefined && (input.volts < eiaj.minV || input.volts > eiaj.maxV)) bits |= W.barrel_voltage_key;
+  return bits;
 }
 
-function buildResult(
-  device: Device, needW: number, recommendation: Recommendation,
-  poe: PoePlan | null, splitter: SplitterPlan | null, outlet: OutletPlan | null, cable: CableRunEvaluation | null,
-  path: ReasonPath, settings: SiteSettings, poeCable: boolean, poeClass: PoeClass | null, noPoe: NoPoe | null,
-): DeviceEvaluation {
-  const warnings = gathered.warnings;
-  const needsRun = recommendation === 'poe' || recommendation === 'poe_splitter' || device.input.type === 'passive_poe';
-  if (needsRun && device.run === undefined) warn(warnings, device.id, 'run_missing', 'info', RUN_MISSING);
-  if (device.cableAccess === 'finished_no_access' && (needsRun || recommendation === 'new_outlet')) {
-    warn(warnings, device.id, 'finished_surfaces', 'info', FINISHED_SURFACES);
+function maxPdForStandard(standard: 'af' | 'at' | 'bt'): number {
+  return standard === 'af' ? POE_TYPES[1].pdPowerW : standard === 'at' ? POE_TYPES[2].pdPowerW : POE_TYPES[4].pdPowerW;
+}
+
+/**
+ * Decide how to power one device, into `p`: the recommendation with every figure the site
+ * rules need, and no words. Pure; uses only the site settings. `deviceEvaluation` writes the
+ * full result from the plan.
+ */
+export function planDevice(device: Device, settings: SiteSettings, p: DevicePlan): DevicePlan {
+  const power = device.power;
+  const needW = powerNeedWatts(power);
+  p.needW = needW;
+  p.poeClass = -1;
+  p.splitterClass = -1;
+  p.outletVia = null;
+  p.hasRun = false;
+  p.poeCable = false;
+  p.reasonClass = -1;
+  p.noPoeKind = 0;
+  p.warningBits = power.typical ? W.typical_figure : 0;
+  p.cautionBits = 0;
+  decide(device, settings, p, needW);
+  const rec = p.recommendation;
+  const needsRun = rec === 'poe' || rec === 'poe_splitter' || device.input.type === 'passive_poe';
+  if (needsRun && device.run === undefined) p.warningBits |= W.run_missing;
+  if (device.cableAccess === 'finished_no_access' && (needsRun || rec === 'new_outlet')) p.warningBits |= W.finished_surfaces;
+  return p;
+}
+
+function decide(device: Device, settings: SiteSettings, p: DevicePlan, needW: number): void {
+  const power = device.power;
+  const distanceM = device.outletDistanceM;
+  const near = distanceM !== undefined && distanceM <= settings.nearOutletM;
+  const mustStayUp = device.mustStayUp;
+  const input = device.input;
+
+  // ── Native PoE ────────────────────────────────────────────────────────────
+  if (input.type === 'poe') {
+    if (needW > MAX_PD_POWER_W + 1e-9) {
+      p.recommendation = 'cannot_power';
+      p.path = 'poe_too_much';
+      dataOnly(p, device, settings);
+      return;
+    }
+    const poeClass: PoeClass = input.class ?? classForPdPower(needW)!;
+    if (input.class !== undefined && needW > POE_CLASSES[poeClass].pdMaxW + 1e-9) p.warningBits |= W.need_above_class;
+    const standard = input.standard;
+    if (standard !== undefined && input.class === undefined && needW > maxPdForStandard(standard) + 1e-9) {
+      p.warningBits |= W.need_above_standard;
+    }
+    const f = tryPoe(device, poeClass, needW, settings);
+    keepPort(p, device.run, poeClass, needW, f);
+    p.reasonClass = poeClass;
+    if (attempt.works) {
+      p.recommendation = 'poe';
+      p.path = 'poe';
+    } else {
+      p.recommendation = 'cannot_power';
+      p.path = 'poe_failed';
+      p.poeClass = -1;
+      p.noPoeKind = 1;
+      p.noPoeWords = attempt.whyNot!;
+    }
+    return;
   }
-  const label = recommendation === 'poe' && poe !== null && poe.poeType === POE_CLASSES[poe.poeClass].minType
+
+  // ── Passive PoE ───────────────────────────────────────────────────────────
+  if (input.type === 'passive_poe') {
+    p.warningBits |= W.passive_poe_device;
+    p.cautionBits |= C.passive_poe;
+    p.recommendation = 'existing_outlet';
+    p.path = 'passive';
+    p.outletVia = 'own_passive_injector';
+    p.outletAtCloset = true;
+    p.electrician = false;
+    p.check = 'passive';
+    const run = device.run;
+    keepRun(p, run, run === undefined ? null : measure(device, run, settings, -1, 0, input.volts, needW));
+    return;
+  }
+
+  // ── Mains-powered: AC plug, AC terminal block ─────────────────────────────
+  if (input.type === 'ac_plug' || (input.type === 'terminal_block' && input.current === 'ac')) {
+    const isTransformer = input.type === 'terminal_block';
+    dataOnly(p, device, settings);
+    if (isTransformer) p.cautionBits |= C.doorbell_transformer;
+    const via: OutletPlan['via'] = isTransformer ? 'transformer' : 'plug';
+    if (near) onOutlet(p, 'existing_outlet', 'mains_near', via, false);
+    else onOutlet(p, 'new_outlet', 'mains_new', via, true);
+    return;
+  }
+
+  // ── Adapter-powered: barrel, USB, DC terminal block ───────────────────────
+  if (input.type === 'dc_barrel' && power.by === 'adapter' && Math.abs(power.volts - input.volts) > 0.05) {
+    p.warningBits |= W.adapter_volts_mismatch;
+  }
+  // Near an outlet, indoors and not critical: the table says existing outlet, whatever PoE could do.
+  if (near && !mustStayUp && !device.outdoor) {
+    dataOnly(p, device, settings);
+    onOutlet(p, 'existing_outlet', 'adapter_near', 'adapter', false);
+    return;
+  }
+  const spec = splitterSpecFor(device, needW);
+  if (spec === MICRO_USB_OVER_LEVELS) p.warningBits |= W.usb_above_levels;
+  let poeWorks = false;
+  let f: RunFigures | null = null;
+  let minAmps = 0;
+  let inputW = 0;
+  let splitterClass: PoeClass | null = null;
+  if (spec === null) {
+    p.noPoeKind = 2;
+  } else {
+    minAmps = minimumAmps(needW, spec.volts);
+    inputW = (spec.volts * minAmps) / settings.splitterEfficiency;
+    splitterClass = classForPdPower(inputW);
+    if (splitterClass === null) {
+      p.noPoeKind = 3;
+      p.noPoeInputW = inputW;
+    } else {
+      f = tryPoe(device, splitterClass, inputW, settings);
+      poeWorks = attempt.works;
+      p.noPoeKind = 1;
+      p.noPoeWords = poeWorks ? '' : attempt.whyNot!;
+    }
+  }
+
+  let choice: Recommendation;
+  if (mustStayUp) {
+    choice = poeWorks ? 'poe_splitter' : near ? 'existing_outlet' : 'new_outlet';
+  } else if (near) {
+    choice = device.outdoor && poeWorks ? 'poe_splitter' : 'existing_outlet';
+  } else {
+    choice = poeWorks ? 'poe_splitter' : 'new_outlet';
+  }
+
+  if (choice === 'poe_splitter') {
+    p.recommendation = 'poe_splitter';
+    p.path = 'splitter';
+    p.noPoeKind = 0;
+    keepPort(p, device.run, splitterClass!, inputW, f);
+    p.splitterClass = splitterClass!;
+    p.splitterVolts = spec!.volts;
+    p.splitterMinAmps = minAmps;
+    p.splitterRatingAmps = splitterRatingAmps(minAmps);
+    p.splitterInputW = inputW;
+    p.plug = spec!.plug;
+    p.usbLevel = spec!.usbLevel;
+    if (input.type === 'dc_barrel') {
+      p.warningBits |= barrelWarnings(input);
+      p.cautionBits |= C.barrel_plug;
+    }
+    return;
+  }
+
+  // Outlet choices: the cable (if any) carries data only; it reports its own
+  // problems (length, CCA…) without the PoE attempt's notes.
+  dataOnly(p, device, settings);
+  if (choice === 'existing_outlet') onOutlet(p, 'existing_outlet', 'adapter_outlet', 'adapter', false);
+  else onOutlet(p, 'new_outlet', 'adapter_new', 'adapter', true);
+}
+
+/** The plan being turned into a result by `evaluateDevice`. */
+const planning = new DevicePlan();
+
+/** Recommend how to power one device, with its reasons, cautions and warnings. Pure; uses only the site settings. */
+export function evaluateDevice(device: Device, site: DeviceContext): DeviceEvaluation {
+  return deviceEvaluation(device, site.settings, planDevice(device, site.settings, planning));
+}
+
+/** A warning whose message is written when first read. */
+function warnLater(warnings: PlanWarning[], deviceId: string, code: DeviceWarningCode, write: () => string): void {
+  warnings.push(deferredField<PlanWarning, 'message'>({ code, severity: WARNING_SEVERITY[code], message: '', deviceId }, 'message', write));
+}
+
+function warn(warnings: PlanWarning[], deviceId: string, code: DeviceWarningCode, message: string): void {
+  warnings.push({ code, severity: WARNING_SEVERITY[code], message, deviceId });
+}
+
+/** The full result of a device planned by `planDevice`: its run's checks, reasons, cautions and warnings. */
+export function deviceEvaluation(device: Device, settings: SiteSettings, p: DevicePlan): DeviceEvaluation {
+  const needW = p.needW;
+  const run = device.run;
+  let cable: CableRunEvaluation | null = null;
+  let figures: RunFigures | null = null;
+  let options: CableRunOptions | null = null;
+  if (run !== undefined) {
+    const input = device.input;
+    options = p.check === 'poe'
+      ? poeOptions(device, settings, p.checkClass, p.checkLoadW)
+      : p.check === 'passive' && input.type === 'passive_poe'
+        ? cableOptions(device, settings, null, { volts: input.volts, loadW: needW })
+        : cableOptions(device, settings, null, null);
+    figures = measureCableRun(run, options, new RunFigures());
+    cable = cableRunEvaluation(run, options, figures);
+  }
+  const poe = poePlanOf(p);
+  const splitter = splitterPlanOf(p, settings);
+  const label = p.recommendation === 'poe' && poe !== null
     ? POE_LABEL[poe.poeClass]
-    : recommendationLabel({ recommendation, poe, splitter });
+    : recommendationLabel({ recommendation: p.recommendation, poe, splitter });
   return {
     deviceId: device.id,
     name: device.name,
     kind: device.kind,
     roomId: device.roomId,
     mustStayUp: device.mustStayUp,
-    recommendation,
+    recommendation: p.recommendation,
     label,
     needW: roundTo(needW, 3),
     typicalFigure: device.power.typical,
     poe,
     splitter,
-    outlet,
+    outlet: outletPlanOf(p, device),
     cable,
-    reasons: deferredListOf(new DeviceReasons(path, deviceFacts(device, needW, settings), poeCable ? cable : null, poeClass, poe, splitter, noPoe)),
-    cautions: gathered.cautions.slice(),
-    warnings: warnings.slice(),
+    reasons: deferredListOf(new DeviceReasons(
+      p.path, deviceFacts(device, needW, settings), p.poeCable ? cable : null,
+      p.reasonClass < 0 ? null : (p.reasonClass as PoeClass), poe, splitter, noPoeOf(p))),
+    cautions: cautionsOf(p.cautionBits),
+    warnings: deviceWarnings(device, needW, p.warningBits, run, options, figures),
   };
+}
+
+/** The warning records of a device's warning bits, in bit order. */
+function deviceWarnings(
+  device: Device, needW: number, bits: number, run: CableRun | undefined, options: CableRunOptions | null, figures: RunFigures | null,
+): PlanWarning[] {
+  const warnings: PlanWarning[] = [];
+  const id = device.id;
+  const input = device.input;
+  const power = device.power;
+  if ((bits & W.typical_figure) !== 0) {
+    warnLater(warnings, id, 'typical_figure', () =>
+      `The power figure (${formatWatts(needW)}) is a typical value, not read from the device: check its label or datasheet.`);
+  }
+  if ((bits & W.need_above_class) !== 0 && input.type === 'poe') {
+    const poeClass = input.class!;
+    const pdMaxW = POE_CLASSES[poeClass].pdMaxW;
+    warnLater(warnings, id, 'need_above_class', () =>
+      `It is listed as Class ${poeClass}, but its figure of ${formatWatts(needW)} is above the ${formatWatts(pdMaxW)} that Class ${poeClass} guarantees: the port may cut it off. Check the datasheet.`);
+  }
+  if ((bits & W.need_above_standard) !== 0 && input.type === 'poe') {
+    const standard = input.standard!;
+    const maxPd = maxPdForStandard(standard);
+    warnLater(warnings, id, 'need_above_standard', () =>
+      `It says 802.3${standard}, which delivers at most ${formatWatts(maxPd)} to a device, but its figure is ${formatWatts(needW)}: check the datasheet.`);
+  }
+  if ((bits & W.passive_poe_device) !== 0 && input.type === 'passive_poe') {
+    const volts = input.volts;
+    warnLater(warnings, id, 'passive_poe_device', () =>
+      `It uses passive PoE at ${formatNumber(volts)} V: never plug it into a standard PoE switch port, and never plug its injector into other gear.`);
+  }
+  if ((bits & W.adapter_volts_mismatch) !== 0 && input.type === 'dc_barrel' && power.by === 'adapter') {
+    const adapterVolts = power.volts;
+    const inputVolts = input.volts;
+    warnLater(warnings, id, 'adapter_volts_mismatch', () =>
+      `Its adapter label says ${formatNumber(adapterVolts)} V but its input was recorded as ${formatNumber(inputVolts)} V: check which is right before buying a splitter.`);
+  }
+  if ((bits & W.usb_above_levels) !== 0) {
+    warnLater(warnings, id, 'usb_above_levels', () =>
+      `It draws ${formatWatts(needW)}, more than micro-USB normally supplies (7.5 W at 1.5 A); it needs a 5 V supply rated for that current and a short, thick cable.`);
+  }
+  if (run !== undefined && options !== null && figures !== null) addCableWarnings(bits, run, options, figures, warnings);
+  if (input.type === 'dc_barrel') {
+    const size = findBarrelSize(input.outerMm, input.innerMm);
+    if ((bits & W.barrel_lookalike) !== 0 && size !== undefined) warn(warnings, id, 'barrel_lookalike', LOOKALIKE_WARNING.get(size)!);
+    if ((bits & W.polarity_unknown) !== 0) warn(warnings, id, 'polarity_unknown', POLARITY_UNKNOWN);
+    const eiaj = size?.eiaj;
+    if ((bits & W.barrel_voltage_key) !== 0 && size !== undefined && eiaj !== undefined) {
+      const volts = input.volts;
+      warnLater(warnings, id, 'barrel_voltage_key', () =>
+        `A ${size.outerMm}×${size.innerMm} mm plug is the ${eiaj.code} size, keyed for ${eiaj.minV}–${eiaj.maxV} V, but the device says ${formatNumber(volts)} V: check the label.`);
+    }
+  }
+  if ((bits & W.run_missing) !== 0) warn(warnings, id, 'run_missing', RUN_MISSING);
+  if ((bits & W.finished_surfaces) !== 0) warn(warnings, id, 'finished_surfaces', FINISHED_SURFACES);
+  return warnings;
 }
 
 function deviceFacts(device: Device, needW: number, settings: SiteSettings): DeviceFacts {
@@ -284,158 +570,6 @@ function deviceFacts(device: Device, needW: number, settings: SiteSettings): Dev
     inputVolts: input.type === 'passive_poe' || input.type === 'terminal_block' ? input.volts : 0,
     transformer: input.type === 'terminal_block' && input.current === 'ac',
   };
-}
-
-function outletPlan(distanceM: number | undefined, near: boolean, via: OutletPlan['via']): OutletPlan {
-  return { via, location: 'device', distanceM: distanceM ?? null, electrician: !near };
-}
-
-const NO_USB_SUPPLY: NoPoe = { kind: 'no_usb_supply' };
-
-/** Recommend how to power one device. Pure; uses only the site settings. */
-export function evaluateDevice(device: Device, site: DeviceContext): DeviceEvaluation {
-  const settings = site.settings;
-  const power = device.power;
-  const needW = powerNeedWatts(power);
-  const warnings = gathered.warnings;
-  const cautions = gathered.cautions;
-  warnings.length = 0;
-  cautions.length = 0;
-  const distanceM = device.outletDistanceM;
-  const near = distanceM !== undefined && distanceM <= settings.nearOutletM;
-  const mustStayUp = device.mustStayUp;
-  const input = device.input;
-
-  if (power.typical) {
-    warnLater(warnings, device.id, 'typical_figure', 'info', () =>
-      `The power figure (${formatWatts(needW)}) is a typical value, not read from the device: check its label or datasheet.`);
-  }
-
-  // ── Native PoE ────────────────────────────────────────────────────────────
-  if (input.type === 'poe') {
-    if (needW > MAX_PD_POWER_W + 1e-9) {
-      const cable = dataOnlyCable(device, settings);
-      return buildResult(device, needW, 'cannot_power', null, null, null, cable, 'poe_too_much', settings, false, null, null);
-    }
-    const fromNeed = classForPdPower(needW)!;
-    const poeClass: PoeClass = input.class ?? fromNeed;
-    const cls = POE_CLASSES[poeClass];
-    if (input.class !== undefined && needW > cls.pdMaxW + 1e-9) {
-      warnLater(warnings, device.id, 'need_above_class', 'warning', () =>
-        `It is listed as Class ${poeClass}, but its figure of ${formatWatts(needW)} is above the ${formatWatts(cls.pdMaxW)} that Class ${poeClass} guarantees: the port may cut it off. Check the datasheet.`);
-    }
-    const standard = input.standard;
-    if (standard !== undefined && input.class === undefined) {
-      const maxPd = standard === 'af' ? POE_TYPES[1].pdPowerW : standard === 'at' ? POE_TYPES[2].pdPowerW : POE_TYPES[4].pdPowerW;
-      if (needW > maxPd + 1e-9) {
-        warnLater(warnings, device.id, 'need_above_standard', 'warning', () =>
-          `It says 802.3${standard}, which delivers at most ${formatWatts(maxPd)} to a device, but its figure is ${formatWatts(needW)}: check the datasheet.`);
-      }
-    }
-    const attempt = tryPoe(device, poeClass, needW, settings, warnings, cautions);
-    if (!attempt.works) {
-      return buildResult(device, needW, 'cannot_power', null, null, null, attempt.cable, 'poe_failed', settings, true, poeClass,
-        { kind: 'words', words: attempt.whyNot! });
-    }
-    return buildResult(device, needW, 'poe', attempt.plan, null, null, attempt.cable, 'poe', settings, true, poeClass, null);
-  }
-
-  // ── Passive PoE ───────────────────────────────────────────────────────────
-  if (input.type === 'passive_poe') {
-    const volts = input.volts;
-    addCaution(cautions, CAUTIONS.passive_poe);
-    warnLater(warnings, device.id, 'passive_poe_device', 'warning', () =>
-      `It uses passive PoE at ${formatNumber(volts)} V: never plug it into a standard PoE switch port, and never plug its injector into other gear.`);
-    const run = device.run;
-    const cable = run === undefined
-      ? null
-      : checkCableRun(run, cableOptions(device, settings, null, { volts, loadW: needW }), warnings, cautions);
-    const outlet: OutletPlan = { via: 'own_passive_injector', location: 'closet', distanceM: null, electrician: false };
-    return buildResult(device, needW, 'existing_outlet', null, null, outlet, cable, 'passive', settings, false, null, null);
-  }
-
-  // ── Mains-powered: AC plug, AC terminal block ─────────────────────────────
-  if (input.type === 'ac_plug' || (input.type === 'terminal_block' && input.current === 'ac')) {
-    const isTransformer = input.type === 'terminal_block';
-    const via: OutletPlan['via'] = isTransformer ? 'transformer' : 'plug';
-    const cable = dataOnlyCable(device, settings);
-    if (isTransformer) addCaution(cautions, CAUTIONS.doorbell_transformer);
-    if (near) {
-      return buildResult(device, needW, 'existing_outlet', null, null, outletPlan(distanceM, true, via), cable, 'mains_near', settings, false, null, null);
-    }
-    addCaution(cautions, CAUTIONS.mains_electrician);
-    return buildResult(device, needW, 'new_outlet', null, null, outletPlan(distanceM, false, via), cable, 'mains_new', settings, false, null, null);
-  }
-
-  // ── Adapter-powered: barrel, USB, DC terminal block ───────────────────────
-  const eff = settings.splitterEfficiency;
-  if (input.type === 'dc_barrel' && power.by === 'adapter' && Math.abs(power.volts - input.volts) > 0.05) {
-    const adapterVolts = power.volts;
-    const inputVolts = input.volts;
-    warnLater(warnings, device.id, 'adapter_volts_mismatch', 'warning', () =>
-      `Its adapter label says ${formatNumber(adapterVolts)} V but its input was recorded as ${formatNumber(inputVolts)} V: check which is right before buying a splitter.`);
-  }
-  // Near an outlet, indoors and not critical: the table says existing outlet, whatever PoE could do.
-  if (near && !mustStayUp && !device.outdoor) {
-    const dataCable = dataOnlyCable(device, settings);
-    return buildResult(device, needW, 'existing_outlet', null, null, outletPlan(distanceM, true, 'adapter'), dataCable, 'adapter_near', settings, false, null, null);
-  }
-  const spec = splitterSpecFor(device, needW);
-  // The PoE attempt's warnings and cautions count only if the splitter is chosen.
-  const warningsBefore = warnings.length;
-  const cautionsBefore = cautions.length;
-  let splitter: SplitterPlan | null = null;
-  let attempt: PoeTry | null = null;
-  let noPoe: NoPoe;
-  if (spec === null) {
-    noPoe = NO_USB_SUPPLY;
-  } else {
-    const minAmps = minimumAmps(needW, spec.volts);
-    const sizing = sizeSplitter(spec.volts, minAmps, eff);
-    if (sizing.poeClass === null) {
-      noPoe = { kind: 'splitter_draw', inputW: sizing.inputW };
-    } else {
-      attempt = tryPoe(device, sizing.poeClass, sizing.inputW, settings, warnings, cautions);
-      splitter = {
-        outputVolts: spec.volts,
-        minAmps,
-        ratingAmps: splitterRatingAmps(minAmps),
-        plug: spec.plug,
-        efficiency: eff,
-        inputW: roundTo(sizing.inputW, 3),
-        poeClass: sizing.poeClass,
-        poeType: sizing.poeType!,
-        usbLevel: spec.usbLevel,
-      };
-      noPoe = { kind: 'words', words: attempt.works ? '' : attempt.whyNot! };
-    }
-  }
-  const poeWorks = attempt !== null && attempt.works;
-
-  let choice: Recommendation;
-  if (mustStayUp) {
-    choice = poeWorks ? 'poe_splitter' : near ? 'existing_outlet' : 'new_outlet';
-  } else if (near) {
-    choice = device.outdoor && poeWorks ? 'poe_splitter' : 'existing_outlet';
-  } else {
-    choice = poeWorks ? 'poe_splitter' : 'new_outlet';
-  }
-
-  if (choice === 'poe_splitter') {
-    if (input.type === 'dc_barrel') barrelChecks(device, input);
-    return buildResult(device, needW, 'poe_splitter', attempt!.plan, splitter, null, attempt!.cable, 'splitter', settings, true, null, null);
-  }
-
-  // Outlet choices: the cable (if any) carries data only; report its own
-  // problems (length, CCA…) without the PoE-specific notes.
-  warnings.length = warningsBefore;
-  cautions.length = cautionsBefore;
-  const dataCable = dataOnlyCable(device, settings);
-  if (choice === 'existing_outlet') {
-    return buildResult(device, needW, 'existing_outlet', null, null, outletPlan(distanceM, true, 'adapter'), dataCable, 'adapter_outlet', settings, false, null, noPoe);
-  }
-  addCaution(cautions, CAUTIONS.mains_electrician);
-  return buildResult(device, needW, 'new_outlet', null, null, outletPlan(distanceM, false, 'adapter'), dataCable, 'adapter_new', settings, false, null, noPoe);
 }
 
 export const NEAR_OUTLET_PROVENANCE = PLANNING.nearOutletM.provenance;

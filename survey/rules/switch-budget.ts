@@ -4,7 +4,7 @@ import { POE_TYPES, type PoeType } from '../standards/poe-types';
 import { formatPercent, formatWatts, roundTo } from '../units';
 import { sourceBudgetW } from './assign-ports';
 import { deferredField, deferredList } from './deferred-text';
-import { buildPlanContext, sourceOnBattery, type PlanContext } from './plan-context';
+import { buildPlanContext, poeSourceIndex, sourceOnBattery, type PlanContext } from './plan-context';
 import type { PlanWarning } from './result-types';
 
 /**
@@ -81,39 +81,57 @@ function typeText(t: PoeType): string {
 export function evaluateSwitchWith(ctx: PlanContext, src: PoeSource): SwitchEvaluation {
   const settings = ctx.site.settings;
   const basis = settings.budgetBasis;
-  const placements = ctx.placementsBySource.get(src.id) ?? [];
+  const plan = ctx.plan;
+  const s = poeSourceIndex(ctx, src);
+  const first = ctx.sourceStart[s];
+  const end = ctx.sourceStart[s + 1];
+  const onSource = ctx.onSource;
   const ports = src.kind === 'poe_switch' ? src.poePorts : src.ports;
   const budgetW = sourceBudgetW(src);
   const planningCeiling = src.kind === 'poe_switch' ? settings.planningCeiling : null;
   const ceilingW = budgetW * (planningCeiling ?? 1);
 
-  const rows: PortRow[] = [];
   let reservedW = 0;
   let expectedW = 0;
-  for (const p of placements) {
-    const e = ctx.deviceById.get(p.deviceId)!;
-    const poe = e.poe!;
-    rows.push({
-      port: p.port, deviceId: p.deviceId, deviceName: e.name, poeClass: poe.poeClass, poeType: poe.poeType,
-      reservedW: poe.reservedW, expectedPseW: poe.expectedPseW, critical: p.critical, pinned: p.pinned,
-    });
-    reservedW += poe.reservedW;
-    expectedW += poe.expectedPseW;
+  for (let k = first; k < end; k++) {
+    reservedW += plan.reservedW[onSource[k]];
+    expectedW += plan.expectedPseW[onSource[k]];
   }
+  const portsUsed = end - first;
+  const devices = ctx.site.devices;
+  const rows = deferredList<PortRow>((into) => {
+    for (let k = first; k < end; k++) {
+      const i = onSource[k];
+      into.push({
+        port: ctx.portOf[i], deviceId: devices[i].id, deviceName: devices[i].name, poeClass: plan.poeClass[i], poeType: plan.poeType[i] as PoeType,
+        reservedW: plan.reservedW[i], expectedPseW: plan.expectedPseW[i], critical: plan.mustStayUp(i), pinned: ctx.pinned[i] === 1,
+      });
+    }
+  });
   const basisW = basis === 'class' ? reservedW : expectedW;
   const overBudget = basisW > budgetW + EPS;
   const overCeiling = basisW > ceilingW + EPS;
 
-  // Shed order: non-critical before critical; within a priority, higher port first.
-  const shed = rows.slice().sort((a, b) => (a.critical === b.critical ? b.port - a.port : a.critical ? 1 : -1));
-  const shedOrder = shed.map((r) => r.port);
+  // Shed order: non-critical before critical; within a priority, higher port first (site indexes, worked out when needed).
+  let shedCache: number[] | null = null;
+  const shed = (): number[] => {
+    if (shedCache === null) {
+      shedCache = Array.from(onSource.subarray(first, end));
+      const crit = (i: number) => plan.mustStayUp(i);
+      shedCache.sort((a, b) => (crit(a) === crit(b) ? ctx.portOf[b] - ctx.portOf[a] : crit(a) ? 1 : -1));
+    }
+    return shedCache;
+  };
+  const shedOrder = deferredList<number>((into) => {
+    for (const i of shed()) into.push(ctx.portOf[i]);
+  });
   const wouldShed: number[] = [];
   if (overBudget) {
     let load = basisW;
-    for (const r of shed) {
+    for (const i of shed()) {
       if (load <= budgetW + EPS) break;
-      wouldShed.push(r.port);
-      load -= basis === 'class' ? r.reservedW : r.expectedPseW;
+      wouldShed.push(ctx.portOf[i]);
+      load -= basis === 'class' ? plan.reservedW[i] : plan.expectedPseW[i];
     }
   }
 
@@ -124,7 +142,6 @@ export function evaluateSwitchWith(ctx: PlanContext, src: PoeSource): SwitchEval
   // The words are written when first read; the figures they quote are fixed by now.
   const warnings: PlanWarning[] = [];
   const what = basis === 'class' ? 'sets aside' : 'is expected to draw';
-  const portsUsed = rows.length;
   const srcName = src.name;
   const srcType = src.poeType;
   const reasons = deferredList<string>((into) => {
@@ -133,11 +150,14 @@ export function evaluateSwitchWith(ctx: PlanContext, src: PoeSource): SwitchEval
       into.push(`We plan to keep it at or below ${formatPercent(planningCeiling)} of its budget (${formatWatts(roundTo(ceilingW, 2))}) — common practice, not a standard.`);
     }
   });
-  for (const r of rows) {
-    if (r.poeType > src.poeType) {
+  for (let k = first; k < end; k++) {
+    const i = onSource[k];
+    const needType = plan.poeType[i] as PoeType;
+    if (needType > src.poeType) {
+      const deviceName = devices[i].name;
       warnings.push(deferredField<PlanWarning, 'message'>(
-        { code: 'port_type_too_low', severity: 'error', sourceId: src.id, deviceId: r.deviceId, message: '' }, 'message', () =>
-          `"${r.deviceName}" needs a ${typeText(r.poeType)} port, but "${srcName}" has ${typeText(srcType)} ports.`));
+        { code: 'port_type_too_low', severity: 'error', sourceId: src.id, deviceId: devices[i].id, message: '' }, 'message', () =>
+          `"${deviceName}" needs a ${typeText(needType)} port, but "${srcName}" has ${typeText(srcType)} ports.`));
     }
   }
   if (overBudget) {
@@ -152,7 +172,7 @@ export function evaluateSwitchWith(ctx: PlanContext, src: PoeSource): SwitchEval
   const suggestions = deferredList<string>((into) => {
     if (!overCeiling) return;
     const excess = basisW - ceilingW;
-    into.push(`Move about ${formatWatts(roundTo(excess, 1))} of devices to another switch (the first to move: ${shed.slice(0, 2).map((r) => r.deviceName).join(', ')}).`);
+    into.push(`Move about ${formatWatts(roundTo(excess, 1))} of devices to another switch (the first to move: ${shed().slice(0, 2).map((i) => devices[i].name).join(', ')}).`);
     if (planningCeiling !== null) {
       into.push(`Or use a switch with a PoE budget of at least ${formatWatts(Math.ceil(basisW / planningCeiling))}.`);
     }
@@ -169,8 +189,8 @@ export function evaluateSwitchWith(ctx: PlanContext, src: PoeSource): SwitchEval
     poeType: src.poeType,
     standard: POE_TYPES[src.poeType].standardName,
     ports,
-    portsUsed: rows.length,
-    portsFree: ports - rows.length,
+    portsUsed,
+    portsFree: ports - portsUsed,
     budgetW,
     planningCeiling,
     ceilingW: roundTo(ceilingW, 3),

@@ -1,6 +1,6 @@
 import { createHash } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
-import { demoSite, evaluateDevice, evaluateSite, type Site } from '../../survey/index';
+import { demoSite, evaluateDevice, evaluateSite, parseSite, type Device, type Site } from '../../survey/index';
 import { deferredField, deferredList } from '../../survey/rules/deferred-text';
 import { generateBenchSite } from '../bench/rules-bench';
 
@@ -128,30 +128,27 @@ describe('the evaluation reads the same with deferred words', () => {
     expect(JSON.stringify(a)).toBe(JSON.stringify(b));
   });
 
-  it('the words of a result do not change when its input is edited afterwards', () => {
-    const site = structuredClone(withSettings(generateBenchSite(200, 5), 'metric', 'expected'));
-    const fresh = JSON.stringify(evaluateSite(structuredClone(site)));
-    const e = evaluateSite(site);
-    const devices = site.devices.map((d) => evaluateDevice(d, site));
-    const freshDevices = JSON.stringify(site.devices.map((d) => evaluateDevice(d, structuredClone(site))));
-    // Edit everything the words quote, in place, before any word is read.
-    const settings = site.settings as { units: string; nearOutletM: number; splitterEfficiency: number };
-    settings.units = 'imperial';
-    settings.nearOutletM = 9;
-    settings.splitterEfficiency = 0.5;
-    for (const d of site.devices as unknown as Record<string, unknown>[]) {
-      d.name = 'Edited';
-      d.mustStayUp = !d.mustStayUp;
-      d.outdoor = !d.outdoor;
-      d.outletDistanceM = 0.25;
-      const input = d.input as { volts?: number };
-      if (input.volts !== undefined) input.volts += 1;
-      const power = d.power as { watts?: number; amps?: number };
-      if (power.watts !== undefined) power.watts += 1;
-      if (power.amps !== undefined) power.amps += 1;
-    }
-    for (const s of site.powerSources as unknown as Record<string, unknown>[]) s.name = 'Edited source';
-    expect(JSON.stringify(e)).toBe(fresh);
-    expect(JSON.stringify(devices)).toBe(freshDevices);
+  it('a parsed site cannot be edited afterwards, so a result read later still matches its site', () => {
+    // A result is read from its site when its records are first read: parseSite freezes the site.
+    const site = withSettings(generateBenchSite(200, 5), 'metric', 'expected');
+    const parsed = parseSite(site);
+    expect(parsed.ok).toBe(true);
+    const frozen = (parsed as { value: Site }).value;
+    const e = evaluateSite(frozen);
+    const edits: (() => void)[] = [
+      () => { (frozen.settings as { units: string }).units = 'imperial'; },
+      () => { (frozen.devices[0] as { name: string }).name = 'Edited'; },
+      () => { (frozen.devices[0].power as { typical: boolean }).typical = true; },
+      () => { (frozen.devices as Device[]).push(frozen.devices[1]); },
+      () => { (frozen.powerSources[0] as { name: string }).name = 'Edited source'; },
+    ];
+    for (const edit of edits) expect(edit).toThrow(TypeError);
+    // The same site as an editable copy gives the same result, read in any order.
+    const copy = structuredClone(frozen);
+    expect(Object.isFrozen(copy.devices[0])).toBe(false);
+    const c = evaluateSite(copy);
+    expect(c.warnings.map((w) => w.message)).toEqual(e.warnings.map((w) => w.message));
+    expect(JSON.stringify(c)).toBe(JSON.stringify(e));
+    expect(JSON.stringify(frozen.devices.map((d) => evaluateDevice(d, frozen)))).toBe(JSON.stringify(e.devices));
   });
 });

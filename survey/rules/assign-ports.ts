@@ -112,9 +112,15 @@ class MaxTree {
     for (let i = size - 1; i >= 1; i--) this.tree[i] = Math.max(this.tree[2 * i], this.tree[2 * i + 1]);
   }
   update(index: number, value: number): void {
+    const tree = this.tree;
     let i = this.size + index;
-    this.tree[i] = value;
-    for (i >>= 1; i >= 1; i >>= 1) this.tree[i] = Math.max(this.tree[2 * i], this.tree[2 * i + 1]);
+    tree[i] = value;
+    // Walk up only while the subtree's maximum changes.
+    for (i >>= 1; i >= 1; i >>= 1) {
+      const m = Math.max(tree[2 * i], tree[2 * i + 1]);
+      if (tree[i] === m) break;
+      tree[i] = m;
+    }
   }
   /** Lowest index whose value is ≥ x, or −1. */
   firstAtLeast(x: number): number {
@@ -138,7 +144,7 @@ function typeName(t: number): string {
 
 /** Assign PoE devices to switch and injector ports. Plans the devices if their results are not given. */
 export function assignPorts(site: Site, devices?: readonly DeviceEvaluation[]): PortAssignment {
-  const plan = devices === undefined ? planSite(site.devices, site.settings) : planOfResults(devices);
+  const plan = devices === undefined ? planSite(site.devices, site.settings) : planOfResults(site.devices, devices);
   const sourceById = new Map<string, PowerSource>();
   const poeSources: PoeSource[] = [];
   for (const s of site.powerSources) {
@@ -194,13 +200,13 @@ export function assignPortsWith(
   const auto: number[] = [];
   const pinnedNoPort: number[] = [];
   for (let i = 0; i < n; i++) {
-    const d = devices[i];
     const hasPoe = poeClass[i] >= 0;
-    if (d.sourceId === undefined) {
+    if (!plan.pinned(i)) {
       if (hasPoe) auto.push(i);
       continue;
     }
-    const src = sourceById.get(d.sourceId);
+    const d = devices[i];
+    const src = sourceById.get(d.sourceId!);
     const st = src === undefined ? undefined : states.get(src.id);
     if (!hasPoe) {
       if (st !== undefined) {
@@ -321,32 +327,63 @@ export function assignPortsWith(
 
 /**
  * Sort device indexes for automatic placement: critical (must stay up) first, then the larger
- * demand, then site order. Demands are whole milliwatts (the rules round them so), so the three
- * keys pack exactly into one number per device and a plain numeric sort does the work; other
- * figures fall back to comparing the keys one by one.
+ * demand, then site order. On a class basis the demands are the few class powers, so the devices
+ * are dealt into one bucket per (critical, demand) in site order; otherwise demands are whole
+ * milliwatts (the rules round them so), and the three keys pack exactly into one number per
+ * device for a plain numeric sort. Anything else compares the keys one by one.
  */
-function sortForPlacement(auto: number[], plan: SitePlan, demandW: Float64Array): void {
-  const n = auto.length;
-  const keys = new Float64Array(n);
-  let packs = plan.size < INDEX_SPAN;
-  for (let k = 0; k < n && packs; k++) {
-    const i = auto[k];
-    const mW = demandW[i] * 1000;
-    const q = Math.round(mW);
-    if (!(q >= 0 && q < DEMAND_SPAN && Math.abs(mW - q) < 1e-6)) {
-      packs = false;
-      break;
-    }
-    keys[k] = ((plan.mustStayUp(i) ? 0 : DEMAND_SPAN) + (DEMAND_SPAN - 1 - q)) * INDEX_SPAN + i;
-  }
-  if (packs) {
-    keys.sort();
-    for (let k = 0; k < n; k++) auto[k] = keys[k] % INDEX_SPAN;
-    return;
-  }
+/** @internal Exported for its tests. */
+export function sortForPlacement(auto: number[], plan: SitePlan, demandW: Float64Array): void {
+  if (sortByBuckets(auto, plan, demandW) || sortByPackedKeys(auto, plan, demandW)) return;
   const crit = new Uint8Array(plan.size);
   for (const i of auto) crit[i] = plan.mustStayUp(i) ? 1 : 0;
   auto.sort((a, b) => (crit[b] - crit[a]) || (demandW[b] - demandW[a]) || (a - b));
+}
+
+/** At most this many distinct demands are dealt into buckets. */
+const MAX_BUCKETS = 32;
+
+function sortByBuckets(auto: number[], plan: SitePlan, demandW: Float64Array): boolean {
+  const values: number[] = [];
+  const bucketOf = new Uint8Array(auto.length);
+  for (let k = 0; k < auto.length; k++) {
+    const w = demandW[auto[k]];
+    let b = values.indexOf(w);
+    if (b < 0) {
+      if (values.length === MAX_BUCKETS) return false;
+      b = values.push(w) - 1;
+    }
+    bucketOf[k] = b;
+  }
+  // Bucket order: critical first, then the larger demand.
+  const byDemand = values.map((_, b) => b).sort((x, y) => values[y] - values[x]);
+  const rank = new Uint8Array(values.length);
+  byDemand.forEach((b, r) => { rank[b] = r; });
+  const slots = 2 * values.length;
+  const start = new Int32Array(slots + 1);
+  const slotOf = (k: number) => (plan.mustStayUp(auto[k]) ? 0 : values.length) + rank[bucketOf[k]];
+  for (let k = 0; k < auto.length; k++) start[slotOf(k) + 1]++;
+  for (let t = 0; t < slots; t++) start[t + 1] += start[t];
+  const sorted = new Int32Array(auto.length);
+  for (let k = 0; k < auto.length; k++) sorted[start[slotOf(k)]++] = auto[k];
+  for (let k = 0; k < auto.length; k++) auto[k] = sorted[k];
+  return true;
+}
+
+function sortByPackedKeys(auto: number[], plan: SitePlan, demandW: Float64Array): boolean {
+  const n = auto.length;
+  if (plan.size >= INDEX_SPAN) return false;
+  const keys = new Float64Array(n);
+  for (let k = 0; k < n; k++) {
+    const i = auto[k];
+    const mW = demandW[i] * 1000;
+    const q = Math.round(mW);
+    if (!(q >= 0 && q < DEMAND_SPAN && Math.abs(mW - q) < 1e-6)) return false;
+    keys[k] = ((plan.mustStayUp(i) ? 0 : DEMAND_SPAN) + (DEMAND_SPAN - 1 - q)) * INDEX_SPAN + i;
+  }
+  keys.sort();
+  for (let k = 0; k < n; k++) auto[k] = keys[k] % INDEX_SPAN;
+  return true;
 }
 
 /** Packed sort keys: up to 2^26 mW (67 kW) of demand and 2^22 devices, well within a double's 2^53. */

@@ -3,6 +3,7 @@ import type { Site } from '../model/site';
 import { CAUTIONS, type Caution } from '../standards/cautions';
 import { formatMinutes, formatPercent, formatWattHours, formatWatts, roundTo } from '../units';
 import { deferredList } from './deferred-text';
+import { REC_CODE } from './site-plan';
 import { buildPlanContext, poeSourceIndex, sourceOnBattery, type PlanContext } from './plan-context';
 import type { PlanWarning } from './result-types';
 
@@ -112,14 +113,14 @@ export function evaluateBatteriesWith(ctx: PlanContext): BatteryReport {
   const plan = ctx.plan;
   // The devices pinned to each outlet, by site index.
   const outletDevices = new Map<string, number[]>();
-  site.devices.forEach((d, i) => {
-    if (d.sourceId === undefined || plan.outletVia(i) === null) return;
-    const src = ctx.sourceById.get(d.sourceId);
-    if (src === undefined || src.kind !== 'outlet') return;
+  for (let i = 0; i < plan.size; i++) {
+    if (!plan.pinned(i) || plan.outletVia(i) === null) continue;
+    const src = ctx.sourceById.get(site.devices[i].sourceId!);
+    if (src === undefined || src.kind !== 'outlet') continue;
     let list = outletDevices.get(src.id);
     if (list === undefined) outletDevices.set(src.id, (list = []));
     list.push(i);
-  });
+  }
 
   const runtimeByBattery = new Map<string, number | null>();
   const batteries: BatteryEvaluation[] = [];
@@ -219,20 +220,21 @@ export function evaluateBatteriesWith(ctx: PlanContext): BatteryReport {
     return v;
   };
   let up = 0;
-  const verdicts: Verdict[] = new Array(site.devices.length);
   const devices = site.devices;
+  const verdicts: Verdict[] = new Array(devices.length);
+  const poeVerdict: (Verdict | undefined)[] = new Array(ctx.poeSources.length);
+  const cannotPower = REC_CODE.cannot_power;
   for (let i = 0; i < devices.length; i++) {
-    const d = devices[i];
     const source = ctx.sourceOf[i];
-    const srcId = source >= 0 ? ctx.poeSources[source].id : plan.outletVia(i) !== null ? d.sourceId : undefined;
     let v: Verdict;
-    if (plan.recommendation(i) === 'cannot_power') v = NO_SOURCE;
-    else if (plan.hasPoe(i) && source < 0) v = NO_PORT;
-    else if (srcId === undefined || !ctx.sourceById.has(srcId)) v = OUTLET_NOT_BACKED;
-    else v = sourceVerdict(srcId);
+    if (plan.recommendationCode[i] === cannotPower) v = NO_SOURCE;
+    else if (source >= 0) v = poeVerdict[source] ??= sourceVerdict(ctx.poeSources[source].id);
+    else if (plan.hasPoe(i)) v = NO_PORT;
+    else if (plan.pinned(i) && plan.outletVia(i) !== null && ctx.sourceById.has(devices[i].sourceId!)) v = sourceVerdict(devices[i].sourceId!);
+    else v = OUTLET_NOT_BACKED;
     verdicts[i] = v;
     if (v.staysUp) up++;
-    else if (d.mustStayUp) criticalDown.push(i);
+    else if (plan.mustStayUp(i)) criticalDown.push(i);
   }
   // One warning per must-stay-up device that goes down (all of severity "warning"), listed on first read.
   const warnings = deferredList<PlanWarning>((into) => {

@@ -10,7 +10,7 @@ import type { CableRun } from '../model/device';
 import { formatLength, formatOhms, formatPercent, formatVolts, formatWatts, roundTo, type UnitSystem } from '../units';
 import { deferredField } from './deferred-text';
 import { C, CABLE_WARNINGS, W } from './device-flags';
-import { drawForPdLoad, lossAtPsePower } from './poe-loss';
+import { atPdLoad, atPsePower, lossAtPsePower, OperatingPoint } from './poe-loss';
 import type {
   CableAtClassPower, CableAtExpectedLoad, CablePassiveCheck, CablePoeCheck, CableRunEvaluation, PlanWarning,
 } from './result-types';
@@ -139,6 +139,10 @@ export class RunFigures {
   cautions = 0;
 }
 
+/** The two operating points of the run being measured (runs are measured one at a time). */
+const AT_CLASS = new OperatingPoint();
+const AT_LOAD = new OperatingPoint();
+
 /** Work out the checks of `run` into `f` (which is returned). */
 export function measureCableRun(run: CableRun, o: CableRunOptions, f: RunFigures): RunFigures {
   const want = o.poe;
@@ -192,8 +196,8 @@ export function measureRun(
     const pairs = cls.pairs;
     const v = spec.pseVoltageMinV;
     const pdVoltageMinV = spec.pdVoltageMinV;
-    const atClass = lossAtPsePower(cls.psePowerW, v, loopOhm, pairs);
-    const atLoad = drawForPdLoad(pdLoadW, v, loopOhm, pairs);
+    const atClass = atPsePower(AT_CLASS, cls.psePowerW, v, loopOhm, pairs);
+    const atLoad = atPdLoad(AT_LOAD, pdLoadW, v, loopOhm, pairs);
     const meetsClassPower = atClass.pdPowerW >= cls.pdMaxW - EPS;
     const meetsMinVoltage = atClass.pdVoltageV >= pdVoltageMinV - EPS;
     const loadMeetsMinVoltage = atLoad.feasible && atLoad.pdVoltageV >= pdVoltageMinV - EPS;

@@ -10,7 +10,8 @@ import { evaluateBatteriesWith, type BatteryEvaluation, type OutageReport } from
 import { deferredField, deferredList } from './deferred-text';
 import { countBySeverity } from './device-flags';
 import { buildPlanContext } from './plan-context';
-import { type DeviceEvaluation, type PlanWarning, type Recommendation, type Severity } from './result-types';
+import { RECOMMENDATION_VALUES, type DeviceEvaluation, type PlanWarning, type Recommendation, type Severity } from './result-types';
+import { REC_CODE } from './site-plan';
 import { evaluateSwitchWith, type SwitchEvaluation } from './switch-budget';
 
 export interface SplitterGroup {
@@ -140,18 +141,21 @@ export function evaluateSite(site: Site, devices?: readonly DeviceEvaluation[]):
 
   const plan = ctx.plan;
   const siteDevices = site.devices;
+  const recCounts = new Int32Array(RECOMMENDATION_VALUES.length);
+  const splitterCode = REC_CODE.poe_splitter;
+  const newOutletCode = REC_CODE.new_outlet;
   for (let i = 0; i < plan.size; i++) {
-    const recommendation = plan.recommendation(i);
-    byRecommendation[recommendation]++;
+    const rec = plan.recommendationCode[i];
+    recCounts[rec]++;
     const critical = plan.mustStayUp(i);
     if (critical) mustStayUp++;
     if (!plan.fromResults) countBySeverity(plan.warningBits[i], warningCounts);
-    if (plan.hasPoe(i)) {
+    if (plan.poeClass[i] >= 0) {
       reservedW += plan.reservedW[i];
       expectedW += plan.expectedPseW[i];
       if (plan.poeType[i] >= 3) highPowerRuns++;
     }
-    if (recommendation === 'poe_splitter' && plan.splitterClass[i] >= 0) {
+    if (rec === splitterCode && plan.splitterClass[i] >= 0) {
       const outputVolts = plan.splitterVolts[i];
       const ratingAmps = plan.splitterRatingAmps[i];
       const label = plan.plug[i]!.label;
@@ -169,7 +173,7 @@ export function evaluateSite(site: Site, devices?: readonly DeviceEvaluation[]):
       if (poeClass > g.maxPoeClass) g.maxPoeClass = poeClass;
       g.deviceIds.push(siteDevices[i].id);
     }
-    if (recommendation === 'new_outlet') {
+    if (rec === newOutletCode) {
       const via = plan.outletVia(i);
       if (via !== null) {
         const d = siteDevices[i];
@@ -188,6 +192,9 @@ export function evaluateSite(site: Site, devices?: readonly DeviceEvaluation[]):
       g.slackM += orderLengthM(lengthM) - lengthM;
     }
   }
+  RECOMMENDATION_VALUES.forEach((r, code) => {
+    byRecommendation[r] = recCounts[code];
+  });
   const cableRuns = deferredList<CableScheduleRow>((into) => {
     for (let i = 0; i < plan.size; i++) {
       if (!plan.hasRun(i)) continue;

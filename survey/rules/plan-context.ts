@@ -39,7 +39,7 @@ export interface PlanContext {
 
 export function buildPlanContext(site: Site, devices?: readonly DeviceEvaluation[]): PlanContext {
   const settings = site.settings;
-  const plan = devices === undefined ? planSite(site.devices, settings) : planOfResults(devices);
+  const plan = devices === undefined ? planSite(site.devices, settings) : planOfResults(site.devices, devices);
   // The rules are pure, so a device's full result is the same whenever it is worked out.
   const evaluations = devices ?? deferredList<DeviceEvaluation>((into) => {
     for (const d of site.devices) into.push(evaluateDevice(d, site));

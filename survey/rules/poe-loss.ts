@@ -26,18 +26,76 @@ export interface LossAtPsePower {
   readonly pdVoltageV: number;
 }
 
-/** The PSE puts out `psePowerW` at `pseVoltageV`: what reaches the PD? */
-export function lossAtPsePower(psePowerW: number, pseVoltageV: number, loopOhmPerPairset: number, pairs: 2 | 4): LossAtPsePower {
+/**
+ * One operating point of a run, filled in place by `atPsePower` and `atPdLoad`, so that a loop
+ * over thousands of runs makes no objects. `lossAtPsePower` and `drawForPdLoad` return the same
+ * figures as records.
+ */
+export class OperatingPoint {
+  /** False when the cable cannot carry the load at this voltage at all (V² < 4·R_eff·P). */
+  feasible = true;
+  psePowerW = 0;
+  pdLoadW = 0;
+  /** Total current out of the port (A). */
+  currentA = 0;
+  lossW = 0;
+  /** Power at the PD (W): P_PSE − P_loss. */
+  pdPowerW = 0;
+  pdVoltageV = 0;
+}
+
+/** The PSE puts out `psePowerW` at `pseVoltageV`: what reaches the PD? (into `out`) */
+export function atPsePower(out: OperatingPoint, psePowerW: number, pseVoltageV: number, loopOhmPerPairset: number, pairs: 2 | 4): OperatingPoint {
   const rEff = effectiveResistance(loopOhmPerPairset, pairs);
   const currentA = psePowerW / pseVoltageV;
   const lossW = currentA * currentA * rEff;
+  out.feasible = true;
+  out.psePowerW = psePowerW;
+  out.currentA = currentA;
+  out.lossW = lossW;
+  out.pdPowerW = psePowerW - lossW;
+  out.pdLoadW = psePowerW - lossW;
+  out.pdVoltageV = pseVoltageV - currentA * rEff;
+  return out;
+}
+
+/** The PD draws `pdLoadW`: how much must the PSE put out, and what voltage does the PD see? (into `out`) */
+export function atPdLoad(out: OperatingPoint, pdLoadW: number, pseVoltageV: number, loopOhmPerPairset: number, pairs: 2 | 4): OperatingPoint {
+  const rEff = effectiveResistance(loopOhmPerPairset, pairs);
+  const disc = pseVoltageV * pseVoltageV - 4 * rEff * pdLoadW;
+  out.pdLoadW = pdLoadW;
+  out.pdPowerW = pdLoadW;
+  if (disc < 0) {
+    // Beyond the maximum-power-transfer point: report the operating point at the
+    // limit (I = V / 2R) so that nothing is NaN, and mark it infeasible.
+    const currentA = pseVoltageV / (2 * rEff);
+    out.feasible = false;
+    out.currentA = currentA;
+    out.lossW = currentA * currentA * rEff;
+    out.psePowerW = pseVoltageV * currentA;
+    out.pdVoltageV = pseVoltageV / 2;
+    return out;
+  }
+  const currentA = (2 * pdLoadW) / (pseVoltageV + Math.sqrt(disc));
+  const lossW = currentA * currentA * rEff;
+  out.feasible = true;
+  out.currentA = currentA;
+  out.lossW = lossW;
+  out.psePowerW = pdLoadW + lossW;
+  out.pdVoltageV = pseVoltageV - currentA * rEff;
+  return out;
+}
+
+/** The PSE puts out `psePowerW` at `pseVoltageV`: what reaches the PD? */
+export function lossAtPsePower(psePowerW: number, pseVoltageV: number, loopOhmPerPairset: number, pairs: 2 | 4): LossAtPsePower {
+  const a = atPsePower(new OperatingPoint(), psePowerW, pseVoltageV, loopOhmPerPairset, pairs);
   return {
     psePowerW,
-    currentA,
-    currentPerPairsetA: pairs === 4 ? currentA / 2 : currentA,
-    lossW,
-    pdPowerW: psePowerW - lossW,
-    pdVoltageV: pseVoltageV - currentA * rEff,
+    currentA: a.currentA,
+    currentPerPairsetA: pairs === 4 ? a.currentA / 2 : a.currentA,
+    lossW: a.lossW,
+    pdPowerW: a.pdPowerW,
+    pdVoltageV: a.pdVoltageV,
   };
 }
 
@@ -58,24 +116,11 @@ export interface DrawForPdLoad {
 /** The PD draws `pdLoadW`: how much must the PSE put out, and what voltage does the PD see? */
 export function drawForPdLoad(pdLoadW: number, pseVoltageV: number, loopOhmPerPairset: number, pairs: 2 | 4): DrawForPdLoad {
   const rEff = effectiveResistance(loopOhmPerPairset, pairs);
-  const maxDeliverableW = rEff > 0 ? (pseVoltageV * pseVoltageV) / (4 * rEff) : Infinity;
-  const disc = pseVoltageV * pseVoltageV - 4 * rEff * pdLoadW;
-  if (disc < 0) {
-    // Beyond the maximum-power-transfer point: report the operating point at the
-    // limit (I = V / 2R) so that nothing is NaN, and mark it infeasible.
-    const currentA = pseVoltageV / (2 * rEff);
-    const lossW = currentA * currentA * rEff;
-    return {
-      feasible: false, pdLoadW, currentA,
-      currentPerPairsetA: pairs === 4 ? currentA / 2 : currentA,
-      lossW, psePowerW: pseVoltageV * currentA, pdVoltageV: pseVoltageV / 2, maxDeliverableW,
-    };
-  }
-  const currentA = (2 * pdLoadW) / (pseVoltageV + Math.sqrt(disc));
-  const lossW = currentA * currentA * rEff;
+  const e = atPdLoad(new OperatingPoint(), pdLoadW, pseVoltageV, loopOhmPerPairset, pairs);
   return {
-    feasible: true, pdLoadW, currentA,
-    currentPerPairsetA: pairs === 4 ? currentA / 2 : currentA,
-    lossW, psePowerW: pdLoadW + lossW, pdVoltageV: pseVoltageV - currentA * rEff, maxDeliverableW,
+    feasible: e.feasible, pdLoadW, currentA: e.currentA,
+    currentPerPairsetA: pairs === 4 ? e.currentA / 2 : e.currentA,
+    lossW: e.lossW, psePowerW: e.psePowerW, pdVoltageV: e.pdVoltageV,
+    maxDeliverableW: rEff > 0 ? (pseVoltageV * pseVoltageV) / (4 * rEff) : Infinity,
   };
 }

@@ -16,7 +16,7 @@ import { C, cautionsOf, W, WARNING_SEVERITY, type DeviceWarningCode } from './de
 import { DevicePlan, noPoeOf, outletPlanOf, poePlanOf, splitterPlanOf } from './device-plan';
 import { DeviceReasons, type DeviceFacts, type ReasonPath } from './device-reasons';
 import { recommendationLabel } from './labels';
-import { drawForPdLoad } from './poe-loss';
+import { atPdLoad, OperatingPoint } from './poe-loss';
 import type { CableRunEvaluation, DeviceEvaluation, OutletPlan, PlanWarning, PlugSpec, PoePlan, Recommendation } from './result-types';
 import { MICRO_USB_PLUG, minimumAmps, plugForBarrel, splitterRatingAmps, TERMINAL_PLUG, USB_C_PLUG } from './splitter';
 /*
@@ -95,6 +95,7 @@ export interface PoeAttempt {
  * a time, so these records are reused and planning a device makes no objects.
  */
 const measuring = new RunFigures();
+const worstCase = new OperatingPoint();
 const attempt = {
   /** PoE gets through (or no run was captured: the standard's worst-case run is assumed). */
   works: true,
@@ -188,7 +189,7 @@ function tryPoe(device: Device, poeClass: PoeClass, pdLoadW: number, settings: S
   if (run === undefined) {
     const cls = POE_CLASSES[poeClass];
     const spec = POE_TYPES[cls.minType];
-    const worst = drawForPdLoad(pdLoadW, spec.pseVoltageMinV, spec.loopResistanceOhm, cls.pairs);
+    const worst = atPdLoad(worstCase, pdLoadW, spec.pseVoltageMinV, spec.loopResistanceOhm, cls.pairs);
     attempt.expectedPseW = roundTo(worst.psePowerW, 3);
     attempt.cableLossW = roundTo(worst.lossW, 3);
     attempt.warnings = 0;
@@ -237,33 +238,47 @@ function keepPort(p: DevicePlan, run: CableRun | undefined, poeClass: PoeClass, 
   keepRun(p, run, f);
 }
 
-interface SplitterSpec {
-  readonly volts: number;
-  readonly plug: PlugSpec;
-  readonly usbLevel: string | null;
-}
+/** What a splitter must put out for the device being planned (filled by `splitterSpecFor`). */
+const spec = {
+  volts: 0,
+  plug: TERMINAL_PLUG as PlugSpec,
+  usbLevel: null as string | null,
+  /** Micro-USB above the USB levels: a 5 V supply all the same, with a warning. */
+  overLevels: false,
+};
 
-const MICRO_USB_OVER_LEVELS: SplitterSpec = { volts: 5, plug: MICRO_USB_PLUG, usbLevel: null };
-
-/** What a splitter must put out for an adapter-powered device; null when no splitter can. */
-function splitterSpecFor(device: Device, needW: number): SplitterSpec | null {
+/** What a splitter must put out for an adapter-powered device, into `spec`; false when no splitter can. */
+function splitterSpecFor(device: Device, needW: number): boolean {
   const input = device.input;
+  spec.usbLevel = null;
+  spec.overLevels = false;
   switch (input.type) {
     case 'dc_barrel':
-      return { volts: input.volts, plug: plugForBarrel(input.outerMm, input.innerMm, input.polarity), usbLevel: null };
+      spec.volts = input.volts;
+      spec.plug = plugForBarrel(input.outerMm, input.innerMm, input.polarity);
+      return true;
     case 'terminal_block':
-      return { volts: input.volts, plug: TERMINAL_PLUG, usbLevel: null };
+      spec.volts = input.volts;
+      spec.plug = TERMINAL_PLUG;
+      return true;
     case 'micro_usb':
     case 'usb_c': {
       const level = usbLevelFor(input.type, needW);
       if (level === null) {
         // Above the USB levels: micro-USB still gets a 5 V supply (with a warning); USB-C above USB PD 100 W gets none.
-        return input.type === 'micro_usb' ? MICRO_USB_OVER_LEVELS : null;
+        if (input.type !== 'micro_usb') return false;
+        spec.volts = 5;
+        spec.plug = MICRO_USB_PLUG;
+        spec.overLevels = true;
+        return true;
       }
-      return { volts: level.volts, plug: input.type === 'usb_c' ? USB_C_PLUG : MICRO_USB_PLUG, usbLevel: level.name };
+      spec.volts = level.volts;
+      spec.plug = input.type === 'usb_c' ? USB_C_PLUG : MICRO_USB_PLUG;
+      spec.usbLevel = level.name;
+      return true;
     }
     default:
-      return null;
+      return false;
   }
 }
 
@@ -381,14 +396,14 @@ function decide(device: Device, settings: SiteSettings, p: DevicePlan, needW: nu
     onOutlet(p, 'existing_outlet', 'adapter_near', 'adapter', false);
     return;
   }
-  const spec = splitterSpecFor(device, needW);
-  if (spec === MICRO_USB_OVER_LEVELS) p.warningBits |= W.usb_above_levels;
+  const hasSpec = splitterSpecFor(device, needW);
+  if (hasSpec && spec.overLevels) p.warningBits |= W.usb_above_levels;
   let poeWorks = false;
   let f: RunFigures | null = null;
   let minAmps = 0;
   let inputW = 0;
   let splitterClass: PoeClass | null = null;
-  if (spec === null) {
+  if (!hasSpec) {
     p.noPoeKind = 2;
   } else {
     minAmps = minimumAmps(needW, spec.volts);
@@ -420,12 +435,12 @@ function decide(device: Device, settings: SiteSettings, p: DevicePlan, needW: nu
     p.noPoeKind = 0;
     keepPort(p, device.run, splitterClass!, inputW, f);
     p.splitterClass = splitterClass!;
-    p.splitterVolts = spec!.volts;
+    p.splitterVolts = spec.volts;
     p.splitterMinAmps = minAmps;
     p.splitterRatingAmps = splitterRatingAmps(minAmps);
     p.splitterInputW = inputW;
-    p.plug = spec!.plug;
-    p.usbLevel = spec!.usbLevel;
+    p.plug = spec.plug;
+    p.usbLevel = spec.usbLevel;
     if (input.type === 'dc_barrel') {
       p.warningBits |= barrelWarnings(input);
       p.cautionBits |= C.barrel_plug;

@@ -24,7 +24,8 @@ function codeOf<T extends string>(values: readonly (T | null)[]): Readonly<Recor
   });
   return codes;
 }
-const REC_CODE = codeOf<Recommendation>(RECOMMENDATION_VALUES);
+/** The code of each recommendation in `SitePlan.recommendationCode` (its place in RECOMMENDATION_VALUES). */
+export const REC_CODE = codeOf<Recommendation>(RECOMMENDATION_VALUES);
 const VIA_CODE = codeOf(VIAS);
 const CATEGORY_CODE = codeOf<CableCategory>(CABLE_CATEGORY_VALUES);
 
@@ -33,12 +34,14 @@ const MUST_STAY_UP = 1;
 const HAS_RUN = 2;
 const RUN_WITHIN_CHANNEL = 4;
 const RUN_OK = 8;
+const PINNED = 16;
 
 export class SitePlan {
   readonly size: number;
   /** The plans were copied from results worked out elsewhere (their warnings are known only as records). */
   readonly fromResults: boolean;
-  private readonly recommendationCode: Uint8Array;
+  /** The recommendation, as its `REC_CODE`. */
+  readonly recommendationCode: Uint8Array;
   private readonly flags: Uint8Array;
   /** The device's need (W), rounded as in its result. */
   readonly needW: Float64Array;
@@ -91,6 +94,10 @@ export class SitePlan {
   mustStayUp(i: number): boolean {
     return (this.flags[i] & MUST_STAY_UP) !== 0;
   }
+  /** The device names a source (and maybe a port) to be powered from. */
+  pinned(i: number): boolean {
+    return (this.flags[i] & PINNED) !== 0;
+  }
   hasPoe(i: number): boolean {
     return this.poeClass[i] >= 0;
   }
@@ -115,9 +122,10 @@ export class SitePlan {
   }
 
   /** Keep the figures of device `i`'s plan. */
-  store(i: number, p: DevicePlan, mustStayUp: boolean): void {
+  store(i: number, p: DevicePlan, device: Device): void {
     this.recommendationCode[i] = REC_CODE[p.recommendation];
-    let flags = mustStayUp ? MUST_STAY_UP : 0;
+    let flags = device.mustStayUp ? MUST_STAY_UP : 0;
+    if (device.sourceId !== undefined) flags |= PINNED;
     if (p.hasRun) {
       flags |= HAS_RUN;
       if (p.runWithinChannel) flags |= RUN_WITHIN_CHANNEL;
@@ -149,9 +157,10 @@ export class SitePlan {
   }
 
   /** Keep the figures of a result worked out elsewhere (e.g. with a designer decision applied). */
-  storeResult(i: number, e: DeviceEvaluation): void {
+  storeResult(i: number, e: DeviceEvaluation, device: Device): void {
     this.recommendationCode[i] = REC_CODE[e.recommendation];
     let flags = e.mustStayUp ? MUST_STAY_UP : 0;
+    if (device.sourceId !== undefined) flags |= PINNED;
     const c = e.cable;
     if (c !== null) {
       flags |= HAS_RUN;
@@ -189,15 +198,15 @@ export function planSite(devices: readonly Device[], settings: SiteSettings): Si
   const p = new DevicePlan();
   for (let i = 0; i < devices.length; i++) {
     const d = devices[i];
-    plan.store(i, planDevice(d, settings, p), d.mustStayUp);
+    plan.store(i, planDevice(d, settings, p), d);
   }
   return plan;
 }
 
-/** The columns of device results worked out elsewhere. */
-export function planOfResults(results: readonly DeviceEvaluation[]): SitePlan {
+/** The columns of device results worked out elsewhere, one per site device in site order. */
+export function planOfResults(devices: readonly Device[], results: readonly DeviceEvaluation[]): SitePlan {
   const plan = new SitePlan(results.length, true);
-  for (let i = 0; i < results.length; i++) plan.storeResult(i, results[i]);
+  for (let i = 0; i < results.length; i++) plan.storeResult(i, results[i], devices[i]);
   return plan;
 }
 

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { parseDevice, parseSite, SiteSchema, type FieldError } from '../../survey/index';
+import { demoSiteInput, parseDevice, parseSite, SiteSchema, type FieldError } from '../../survey/index';
+import { generateBenchSite } from '../bench/rules-bench';
 import * as v from 'valibot';
 import { dev, switchInput, type DeviceInput } from './helpers';
 
@@ -148,6 +149,28 @@ describe('valid input', () => {
   });
   it('the schema is usable directly with valibot (shared by client and server)', () => {
     expect(v.safeParse(SiteSchema, siteInput([dev({ id: 'a' })])).success).toBe(true);
+  });
+  it('hands out a frozen site whose devices share one layout, with the same JSON as the schema gives', () => {
+    const input = siteInput([
+      dev({ id: 'a' }),
+      dev({ id: 'b', input: { type: 'dc_barrel', outerMm: 5.5, innerMm: 2.1, polarity: 'centre_positive', volts: 12 }, power: { by: 'adapter', volts: 12, amps: 1 } }),
+      { ...dev({ id: 'c', input: { type: 'ac_plug' } }), run: undefined, outletDistanceM: 0.5 },
+    ]);
+    const r = parseSite(input);
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    const [a, b, c] = r.value.devices;
+    expect(Object.keys(b)).toEqual(Object.keys(a));
+    expect(Object.keys(c)).toEqual(Object.keys(a));
+    expect(Object.keys(b.input)).toEqual(Object.keys(a.input));
+    expect(JSON.stringify(r.value)).toBe(JSON.stringify(v.parse(SiteSchema, input)));
+    expect(Object.isFrozen(r.value)).toBe(true);
+    expect(Object.isFrozen(b.input)).toBe(true);
+    expect(Object.isFrozen(r.value.devices)).toBe(true);
+    // Every kind of input and power, with and without each optional field.
+    for (const site of [demoSiteInput, generateBenchSite(600, 4)]) {
+      expect(JSON.stringify(parseSite(site).ok && (parseSite(site) as { value: unknown }).value)).toBe(JSON.stringify(v.parse(SiteSchema, site)));
+    }
   });
   it('parseDevice checks a single device', () => {
     expect(parseDevice(dev({ id: 'a' })).ok).toBe(true);

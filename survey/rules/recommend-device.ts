@@ -18,7 +18,7 @@ import { DeviceReasons, type DeviceFacts, type ReasonPath } from './device-reaso
 import { recommendationLabel } from './labels';
 import { atPdLoad, OperatingPoint } from './poe-loss';
 import type { CableRunEvaluation, DeviceEvaluation, OutletPlan, PlanWarning, PlugSpec, PoePlan, Recommendation } from './result-types';
-import { MICRO_USB_PLUG, minimumAmps, plugForBarrel, splitterRatingAmps, TERMINAL_PLUG, USB_C_PLUG } from './splitter';
+import { MICRO_USB_PLUG, minimumAmps, plugForBarrel, splitterInputW, splitterRatingAmps, TERMINAL_PLUG, USB_C_PLUG } from './splitter';
 /*
  * Decision policy — how each device is powered.
  *
@@ -407,7 +407,7 @@ function decide(device: Device, settings: SiteSettings, p: DevicePlan, needW: nu
     p.noPoeKind = 2;
   } else {
     minAmps = minimumAmps(needW, spec.volts);
-    inputW = (spec.volts * minAmps) / settings.splitterEfficiency;
+    inputW = splitterInputW(spec.volts, minAmps, settings.splitterEfficiency);
     splitterClass = classForPdPower(inputW);
     if (splitterClass === null) {
       p.noPoeKind = 3;

@@ -17,8 +17,13 @@ export interface SplitterSizing {
   readonly poeType: PoeType | null;
 }
 
+/** P_in = V_out × I_out ÷ η: what the splitter draws as a PD (W). */
+export function splitterInputW(outputVolts: number, outputAmps: number, efficiency: number): number {
+  return (outputVolts * outputAmps) / efficiency;
+}
+
 export function sizeSplitter(outputVolts: number, outputAmps: number, efficiency: number): SplitterSizing {
-  const inputW = (outputVolts * outputAmps) / efficiency;
+  const inputW = splitterInputW(outputVolts, outputAmps, efficiency);
   const poeClass = classForPdPower(inputW);
   return { inputW, poeClass, poeType: poeClass === null ? null : POE_CLASSES[poeClass].minType };
 }

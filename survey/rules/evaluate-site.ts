@@ -101,7 +101,6 @@ const UNASSIGNED_CODE: Readonly<Record<UnassignedDevice['code'], string>> = {
   pinned_source_full: 'unassigned_pinned_source_full',
 };
 
-
 /** Order length for one drop: run + 10 % + 3 m service loop ([PRACTICE], common practice, no source). */
 export function orderLengthM(runM: number): number {
   return runM * (1 + CABLE_SLACK.fraction) + CABLE_SLACK.serviceLoopM;

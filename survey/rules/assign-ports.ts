@@ -1,6 +1,7 @@
 import type { BatteryBackup } from '../model/battery';
 import { isPoeSource, type PoeSource, type PowerSource } from '../model/power-source';
 import type { Site } from '../model/site';
+import { freezeSite } from '../model/validate';
 import { POE_TYPES } from '../standards/poe-types';
 import { formatPercent, formatWatts, roundTo } from '../units';
 import { deferredField, deferredList } from './deferred-text';
@@ -144,6 +145,7 @@ function typeName(t: number): string {
 
 /** Assign PoE devices to switch and injector ports. Plans the devices if their results are not given. */
 export function assignPorts(site: Site, devices?: readonly DeviceEvaluation[]): PortAssignment {
+  freezeSite(site); // the placements are listed from it when first read
   const plan = devices === undefined ? planSite(site.devices, site.settings) : planOfResults(site.devices, devices);
   const sourceById = new Map<string, PowerSource>();
   const poeSources: PoeSource[] = [];
@@ -327,12 +329,14 @@ export function assignPortsWith(
 
 /**
  * Sort device indexes for automatic placement: critical (must stay up) first, then the larger
- * demand, then site order. On a class basis the demands are the few class powers, so the devices
- * are dealt into one bucket per (critical, demand) in site order; otherwise demands are whole
- * milliwatts (the rules round them so), and the three keys pack exactly into one number per
- * device for a plain numeric sort. Anything else compares the keys one by one.
+ * demand, then site order. With at most 32 distinct demands (always so on a class basis: the
+ * class powers) the devices are dealt into one bucket per (critical, demand) in site order.
+ * Otherwise, when every demand is a whole number of milliwatts (the rules round them so), the
+ * three keys pack exactly into one number per device for a plain numeric sort. Anything else
+ * compares the keys one by one. All three give the same order.
+ *
+ * @internal Exported for its tests.
  */
-/** @internal Exported for its tests. */
 export function sortForPlacement(auto: number[], plan: SitePlan, demandW: Float64Array): void {
   if (sortByBuckets(auto, plan, demandW) || sortByPackedKeys(auto, plan, demandW)) return;
   const crit = new Uint8Array(plan.size);
@@ -376,9 +380,8 @@ function sortByPackedKeys(auto: number[], plan: SitePlan, demandW: Float64Array)
   const keys = new Float64Array(n);
   for (let k = 0; k < n; k++) {
     const i = auto[k];
-    const mW = demandW[i] * 1000;
-    const q = Math.round(mW);
-    if (!(q >= 0 && q < DEMAND_SPAN && Math.abs(mW - q) < 1e-6)) return false;
+    const q = Math.round(demandW[i] * 1000);
+    if (!(q >= 0 && q < DEMAND_SPAN && q / 1000 === demandW[i])) return false;
     keys[k] = ((plan.mustStayUp(i) ? 0 : DEMAND_SPAN) + (DEMAND_SPAN - 1 - q)) * INDEX_SPAN + i;
   }
   keys.sort();

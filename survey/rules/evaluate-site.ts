@@ -112,6 +112,9 @@ export function orderLengthM(runM: number): number {
  * Linear in the number of devices. Validate input first with `parseSite`.
  * `devices` may carry device results already worked out (one per site device, in site order),
  * e.g. with designer decisions applied; the port assignment, budgets and battery then follow them.
+ * Such results change only how a device is powered: their ids, names, rooms and must-stay-up are
+ * the site's own (the summary and lists read those from the site).
+ * The site is frozen (see `freezeSite`): records are written from it when first read.
  */
 export function evaluateSite(site: Site, devices?: readonly DeviceEvaluation[]): SiteEvaluation {
   const ctx = buildPlanContext(site, devices);

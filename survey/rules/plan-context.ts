@@ -1,6 +1,7 @@
 import type { BatteryBackup } from '../model/battery';
 import { isPoeSource, type PoeSource, type PowerSource } from '../model/power-source';
 import type { Site } from '../model/site';
+import { freezeSite } from '../model/validate';
 import { assignPortsWith, type PortAssignment } from './assign-ports';
 import { deferredList } from './deferred-text';
 import { evaluateDevice } from './recommend-device';
@@ -13,7 +14,7 @@ import { planOfResults, planSite, type SitePlan } from './site-plan';
  *
  * The site rules read the devices' plans (site-plan.ts: decisions and figures, as columns).
  * The devices' full results, with their words, are worked out when `devices` is first read,
- * so a site must not be changed after it is evaluated (sites are values everywhere in Dropwise).
+ * so the site is frozen here: after it is evaluated, an edit throws instead of changing a result.
  */
 export interface PlanContext {
   readonly site: Site;
@@ -23,6 +24,8 @@ export interface PlanContext {
   readonly devices: readonly DeviceEvaluation[];
   readonly sourceById: ReadonlyMap<string, PowerSource>;
   readonly poeSources: readonly PoeSource[];
+  /** The index of each PoE source in `poeSources`, by id. */
+  readonly poeIndexById: ReadonlyMap<string, number>;
   readonly batteryBySource: ReadonlyMap<string, BatteryBackup>;
   readonly assignment: PortAssignment;
   /** For each device (site index): the index in `poeSources` of its source (−1 for none), and its port. */
@@ -38,6 +41,8 @@ export interface PlanContext {
 }
 
 export function buildPlanContext(site: Site, devices?: readonly DeviceEvaluation[]): PlanContext {
+  // Results are read from the site later, so it must not change: freeze it (a parsed site already is).
+  freezeSite(site);
   const settings = site.settings;
   const plan = devices === undefined ? planSite(site.devices, settings) : planOfResults(site.devices, devices);
   // The rules are pure, so a device's full result is the same whenever it is worked out.
@@ -46,9 +51,10 @@ export function buildPlanContext(site: Site, devices?: readonly DeviceEvaluation
   });
   const sourceById = new Map<string, PowerSource>();
   const poeSources: PoeSource[] = [];
+  const poeIndexById = new Map<string, number>();
   for (const s of site.powerSources) {
     sourceById.set(s.id, s);
-    if (isPoeSource(s)) poeSources.push(s);
+    if (isPoeSource(s)) poeIndexById.set(s.id, poeSources.push(s) - 1);
   }
   const batteryBySource = new Map<string, BatteryBackup>();
   for (const b of site.batteries) for (const id of b.feeds) batteryBySource.set(id, b);
@@ -77,7 +83,7 @@ export function buildPlanContext(site: Site, devices?: readonly DeviceEvaluation
     }
   }
   return {
-    site, plan, devices: evaluations, sourceById, poeSources, batteryBySource,
+    site, plan, devices: evaluations, sourceById, poeSources, poeIndexById, batteryBySource,
     assignment: work.assignment, sourceOf, portOf, pinned: work.pinned, unassignedDevice: work.unassignedDevice, sourceStart, onSource,
   };
 }
@@ -87,7 +93,7 @@ export function sourceOnBattery(ctx: PlanContext, s: PowerSource): boolean {
   return ctx.batteryBySource.has(s.id) || s.onBattery;
 }
 
-/** The index of a PoE source in the context's `poeSources`. */
+/** The index in the context's `poeSources` of the PoE source with this source's id (−1 for none). */
 export function poeSourceIndex(ctx: PlanContext, src: PoeSource): number {
-  return ctx.poeSources.indexOf(src);
+  return ctx.poeIndexById.get(src.id) ?? -1;
 }

@@ -35,6 +35,7 @@ export class OperatingPoint {
   /** False when the cable cannot carry the load at this voltage at all (V² < 4·R_eff·P). */
   feasible = true;
   psePowerW = 0;
+  /** The load at the PD (W), when it was given (`atPdLoad`). */
   pdLoadW = 0;
   /** Total current out of the port (A). */
   currentA = 0;
@@ -54,7 +55,6 @@ export function atPsePower(out: OperatingPoint, psePowerW: number, pseVoltageV: 
   out.currentA = currentA;
   out.lossW = lossW;
   out.pdPowerW = psePowerW - lossW;
-  out.pdLoadW = psePowerW - lossW;
   out.pdVoltageV = pseVoltageV - currentA * rEff;
   return out;
 }

@@ -102,8 +102,6 @@ const attempt = {
   whyNot: null as string | null,
   expectedPseW: 0,
   cableLossW: 0,
-  warnings: 0,
-  cautions: 0,
 };
 
 /** Try to power `pdLoadW` over the device's run with a port of `poeClass` (also used for designer decisions). */
@@ -192,15 +190,11 @@ function tryPoe(device: Device, poeClass: PoeClass, pdLoadW: number, settings: S
     const worst = atPdLoad(worstCase, pdLoadW, spec.pseVoltageMinV, spec.loopResistanceOhm, cls.pairs);
     attempt.expectedPseW = roundTo(worst.psePowerW, 3);
     attempt.cableLossW = roundTo(worst.lossW, 3);
-    attempt.warnings = 0;
-    attempt.cautions = 0;
     return null;
   }
   const f = measure(device, run, settings, poeClass, pdLoadW, 0, 0);
   attempt.expectedPseW = roundTo(f.loadPsePowerW, 3);
   attempt.cableLossW = roundTo(f.loadLossW, 3);
-  attempt.warnings = f.warnings;
-  attempt.cautions = f.cautions;
   if (!f.ok) {
     attempt.works = false;
     attempt.whyNot = !f.withinChannel ? TOO_LONG[settings.units] : CANNOT_CARRY;

@@ -7,13 +7,7 @@ import { DevicePlan } from './device-plan';
 import { planDevice } from './recommend-device';
 import { RECOMMENDATION_VALUES, type DeviceEvaluation, type OutletPlan, type PlugSpec, type Recommendation } from './result-types';
 
-/**
- * The figures of every device's plan that the site rules read (port assignment, budgets,
- * battery, summary), kept as columns: one typed array per figure, indexed by the device's
- * place in the site. Evaluating a site of thousands of devices so makes a handful of arrays
- * instead of thousands of objects. A device's full result is not kept here: it is worked out
- * again from the device (`evaluateDevice`) when it is read.
- */
+/** How an outlet-fed device is fed, by code (0: not from an outlet). */
 const VIAS: readonly (OutletPlan['via'] | null)[] = [null, 'adapter', 'plug', 'own_passive_injector', 'transformer'];
 
 /** The code of each value: its place in `values` (a plain object reads faster than a Map here). */
@@ -36,6 +30,13 @@ const RUN_WITHIN_CHANNEL = 4;
 const RUN_OK = 8;
 const PINNED = 16;
 
+/**
+ * The figures of every device's plan that the site rules read (port assignment, budgets,
+ * battery, summary), kept as columns: one typed array per figure, indexed by the device's
+ * place in the site. Evaluating a site of thousands of devices so makes a handful of arrays
+ * instead of thousands of objects. A device's full result is not kept here: it is worked out
+ * again from the device (`evaluateDevice`) when it is read.
+ */
 export class SitePlan {
   readonly size: number;
   /** The plans were copied from results worked out elsewhere (their warnings are known only as records). */

@@ -143,10 +143,13 @@ describe('the evaluation reads the same with deferred words', () => {
       () => { (frozen.powerSources[0] as { name: string }).name = 'Edited source'; },
     ];
     for (const edit of edits) expect(edit).toThrow(TypeError);
-    // The same site as an editable copy gives the same result, read in any order.
+    // The same site as an editable copy gives the same result, read in any order; evaluating it
+    // freezes it too, so it cannot be edited under a result either.
     const copy = structuredClone(frozen);
     expect(Object.isFrozen(copy.devices[0])).toBe(false);
     const c = evaluateSite(copy);
+    expect(() => { (copy.devices[0].power as { typical: boolean }).typical = true; }).toThrow(TypeError);
+    expect(() => { (copy.devices[0] as { name: string }).name = 'Edited'; }).toThrow(TypeError);
     expect(c.warnings.map((w) => w.message)).toEqual(e.warnings.map((w) => w.message));
     expect(JSON.stringify(c)).toBe(JSON.stringify(e));
     expect(JSON.stringify(frozen.devices.map((d) => evaluateDevice(d, frozen)))).toBe(JSON.stringify(e.devices));

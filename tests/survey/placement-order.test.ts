@@ -22,7 +22,8 @@ function reference(auto: readonly number[], critical: readonly boolean[], demand
   return auto.slice().sort((a, b) => (Number(critical[b]) - Number(critical[a])) || (demand[b] - demand[a]) || (a - b));
 }
 
-const site = (demand: fc.Arbitrary<number>) => fc.array(fc.record({ critical: fc.boolean(), demand, auto: fc.boolean() }), { maxLength: 300 });
+// Up to 300 devices (size 'max': fast-check's default would keep arrays short, under the 32 buckets).
+const site = (demand: fc.Arbitrary<number>) => fc.array(fc.record({ critical: fc.boolean(), demand, auto: fc.boolean() }), { maxLength: 300, size: 'max' });
 
 describe('automatic placement order', () => {
   const check = (rows: { critical: boolean; demand: number; auto: boolean }[]) => {
@@ -41,6 +42,12 @@ describe('automatic placement order', () => {
 
   it('packs many distinct whole-milliwatt demands into numeric keys in the comparator order', () => {
     fc.assert(fc.property(site(fc.integer({ min: 0, max: 100_000 }).map((mW) => mW / 1000)), check), { numRuns: 200 });
+  });
+
+  it('does not pack demands a hair off a whole milliwatt (results passed in need not be rounded)', () => {
+    const nearMilliwatts = fc.tuple(fc.integer({ min: 0, max: 200 }), fc.constantFrom(0, 0, 1e-10, -1e-10))
+      .map(([mW, off]) => Math.max(0, mW / 1000 + off));
+    fc.assert(fc.property(site(nearMilliwatts), check), { numRuns: 300 });
   });
 
   it('falls back to comparing for demands finer than a milliwatt', () => {

@@ -114,19 +114,12 @@ export class RunFigures {
   pairs: 2 | 4 = 2;
   pseVoltageMinV = 0;
   pdVoltageMinV = 0;
-  /** At full class power. */
-  classCurrentA = 0;
-  classLossW = 0;
-  classPdPowerW = 0;
-  classPdVoltageV = 0;
+  /** The run at full class power, and whether the PD still gets its class power and minimum voltage. */
+  readonly atClass = new OperatingPoint();
   meetsClassPower = true;
   meetsMinVoltage = true;
-  /** At the expected load. */
-  loadFeasible = true;
-  loadCurrentA = 0;
-  loadLossW = 0;
-  loadPsePowerW = 0;
-  loadPdVoltageV = 0;
+  /** The run at the expected load, and whether the PD still gets its minimum voltage. */
+  readonly atLoad = new OperatingPoint();
   loadMeetsMinVoltage = true;
   /** The passive PoE check was made (o.passive was given). */
   hasPassive = false;
@@ -138,10 +131,6 @@ export class RunFigures {
   warnings = 0;
   cautions = 0;
 }
-
-/** The two operating points of the run being measured (runs are measured one at a time). */
-const AT_CLASS = new OperatingPoint();
-const AT_LOAD = new OperatingPoint();
 
 /** Work out the checks of `run` into `f` (which is returned). */
 export function measureCableRun(run: CableRun, o: CableRunOptions, f: RunFigures): RunFigures {
@@ -196,8 +185,8 @@ export function measureRun(
     const pairs = cls.pairs;
     const v = spec.pseVoltageMinV;
     const pdVoltageMinV = spec.pdVoltageMinV;
-    const atClass = atPsePower(AT_CLASS, cls.psePowerW, v, loopOhm, pairs);
-    const atLoad = atPdLoad(AT_LOAD, pdLoadW, v, loopOhm, pairs);
+    const atClass = atPsePower(f.atClass, cls.psePowerW, v, loopOhm, pairs);
+    const atLoad = atPdLoad(f.atLoad, pdLoadW, v, loopOhm, pairs);
     const meetsClassPower = atClass.pdPowerW >= cls.pdMaxW - EPS;
     const meetsMinVoltage = atClass.pdVoltageV >= pdVoltageMinV - EPS;
     const loadMeetsMinVoltage = atLoad.feasible && atLoad.pdVoltageV >= pdVoltageMinV - EPS;
@@ -206,17 +195,8 @@ export function measureRun(
     f.pairs = pairs;
     f.pseVoltageMinV = v;
     f.pdVoltageMinV = pdVoltageMinV;
-    f.classCurrentA = atClass.currentA;
-    f.classLossW = atClass.lossW;
-    f.classPdPowerW = atClass.pdPowerW;
-    f.classPdVoltageV = atClass.pdVoltageV;
     f.meetsClassPower = meetsClassPower;
     f.meetsMinVoltage = meetsMinVoltage;
-    f.loadFeasible = atLoad.feasible;
-    f.loadCurrentA = atLoad.currentA;
-    f.loadLossW = atLoad.lossW;
-    f.loadPsePowerW = atLoad.psePowerW;
-    f.loadPdVoltageV = atLoad.pdVoltageV;
     f.loadMeetsMinVoltage = loadMeetsMinVoltage;
     const delivers = meetsClassPower && meetsMinVoltage && loadMeetsMinVoltage;
     ok = ok && delivers;
@@ -268,22 +248,22 @@ export function cableRunEvaluation(run: CableRun, o: CableRunOptions, f: RunFigu
     const cls = POE_CLASSES[f.poeClass];
     const atClassPower: CableAtClassPower = {
       psePowerW: cls.psePowerW,
-      currentA: roundTo(f.classCurrentA, 4),
-      currentPerPairsetA: roundTo(f.pairs === 4 ? f.classCurrentA / 2 : f.classCurrentA, 4),
-      currentPerConductorA: roundTo((f.pairs === 4 ? f.classCurrentA / 2 : f.classCurrentA) / 2, 4),
-      lossW: roundTo(f.classLossW, 3),
-      pdPowerW: roundTo(f.classPdPowerW, 3),
-      pdVoltageV: roundTo(f.classPdVoltageV, 3),
+      currentA: roundTo(f.atClass.currentA, 4),
+      currentPerPairsetA: roundTo(f.pairs === 4 ? f.atClass.currentA / 2 : f.atClass.currentA, 4),
+      currentPerConductorA: roundTo((f.pairs === 4 ? f.atClass.currentA / 2 : f.atClass.currentA) / 2, 4),
+      lossW: roundTo(f.atClass.lossW, 3),
+      pdPowerW: roundTo(f.atClass.pdPowerW, 3),
+      pdVoltageV: roundTo(f.atClass.pdVoltageV, 3),
       meetsClassPower: f.meetsClassPower,
       meetsMinVoltage: f.meetsMinVoltage,
     };
     const atExpectedLoad: CableAtExpectedLoad = {
       pdLoadW: roundTo(want.pdLoadW, 3),
-      feasible: f.loadFeasible,
-      currentA: roundTo(f.loadCurrentA, 4),
-      lossW: roundTo(f.loadLossW, 3),
-      psePowerW: roundTo(f.loadPsePowerW, 3),
-      pdVoltageV: roundTo(f.loadPdVoltageV, 3),
+      feasible: f.atLoad.feasible,
+      currentA: roundTo(f.atLoad.currentA, 4),
+      lossW: roundTo(f.atLoad.lossW, 3),
+      psePowerW: roundTo(f.atLoad.psePowerW, 3),
+      pdVoltageV: roundTo(f.atLoad.pdVoltageV, 3),
       meetsMinVoltage: f.loadMeetsMinVoltage,
     };
     poe = {
@@ -343,8 +323,8 @@ export function addCableWarnings(bits: number, run: CableRun, o: CableRunOptions
   if ((bits & W.cable_cannot_carry) !== 0) {
     const poeClass = f.poeClass;
     const cls = POE_CLASSES[poeClass];
-    const pdPowerW = f.classPdPowerW;
-    const pdVoltageV = f.classPdVoltageV;
+    const pdPowerW = f.atClass.pdPowerW;
+    const pdVoltageV = f.atClass.pdVoltageV;
     const pdVoltageMinV = f.pdVoltageMinV;
     into.push(cableWarning('cable_cannot_carry', 'error', deviceId, () =>
       `This cable cannot guarantee Class ${poeClass} power: at full load the device would get ${formatWatts(pdPowerW)} at ${formatVolts(pdVoltageV)} (it needs ${formatWatts(cls.pdMaxW)} and at least ${formatVolts(pdVoltageMinV)}). A shorter run or thicker solid-copper cable fixes this.`));

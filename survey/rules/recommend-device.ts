@@ -193,8 +193,8 @@ function tryPoe(device: Device, poeClass: PoeClass, pdLoadW: number, settings: S
     return null;
   }
   const f = measure(device, run, settings, poeClass, pdLoadW, 0, 0);
-  attempt.expectedPseW = roundTo(f.loadPsePowerW, 3);
-  attempt.cableLossW = roundTo(f.loadLossW, 3);
+  attempt.expectedPseW = roundTo(f.atLoad.psePowerW, 3);
+  attempt.cableLossW = roundTo(f.atLoad.lossW, 3);
   if (!f.ok) {
     attempt.works = false;
     attempt.whyNot = !f.withinChannel ? TOO_LONG[settings.units] : CANNOT_CARRY;

@@ -10,6 +10,7 @@ import { securityHeaders } from "./middleware/security-headers";
 import { rejectNulCharacters } from "./middleware/reject-nul";
 import { requestLog } from "./middleware/request-log";
 import { sameOriginWrites } from "./middleware/same-origin-writes";
+import { writesRefreshSiteLists } from "./middleware/writes-refresh-site-lists";
 import { healthRouter } from "./routes/health";
 import { invitesRouter } from "./routes/invites";
 import { meRouter, sessionRouter } from "./routes/me";
@@ -84,6 +85,7 @@ export function createApp(ctx: AppContext) {
   // Everything else needs a signed-in member; each route then asks survey/policy.ts.
   const memberApi = express.Router();
   memberApi.use(requireSignedIn);
+  memberApi.use(writesRefreshSiteLists(ctx.siteLists));
   for (const addRoutes of [meRouter, sitesRouter, teamRouter, outboxRouter, syncRouter, photosRouter, rulesRouter, planRouter, closetRouter, deskRouter, reportsRouter]) {
     addRoutes(ctx, memberApi);
   }

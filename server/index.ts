@@ -4,6 +4,7 @@ import { runMigrations } from "../db/migrate";
 import { createApp } from "./app";
 import { membershipLookup } from "./auth/auth-config";
 import { startMemberDirectory } from "./auth/member-directory";
+import { startSiteLists } from "./services/site-lists";
 import type { ServerConfig } from "./config";
 import type { AppContext } from "./context";
 import { createLogger, type Logger } from "./logger";
@@ -43,13 +44,16 @@ export async function startServer(config: ServerConfig, { logger = createLogger(
   const payments = fakePayments
     ? createPayments({ secretKey: fakePayments.secretKey, webhookSecret: fakePayments.webhookSecret, apiOrigin: fakePayments.origin })
     : createPayments({ secretKey: config.payments.secretKey!, webhookSecret: config.payments.webhookSecret ?? "", apiOrigin: config.payments.apiOrigin });
-  const members = await startMemberDirectory({ connectionString: config.databaseUrl, pool: db.$client, lookup: membershipLookup(db), logger });
-  /** Everything started above, closed whatever fails: the stand-ins and the member directory, then the pool. */
+  const [members, siteLists] = await Promise.all([
+    startMemberDirectory({ connectionString: config.databaseUrl, pool: db.$client, lookup: membershipLookup(db), logger }),
+    startSiteLists({ connectionString: config.databaseUrl, db, pool: db.$client, logger }),
+  ]);
+  /** Everything started above, closed whatever fails: the stand-ins and the remembered members and site lists, then the pool. */
   const closeServices = async () => {
-    await Promise.allSettled([members.close(), sink?.close(), localObjects?.close(), fakePayments?.close()]);
+    await Promise.allSettled([members.close(), siteLists.close(), sink?.close(), localObjects?.close(), fakePayments?.close()]);
     await db.$client.end();
   };
-  const ctx: AppContext = { db, config, logger, mailer, objects, payments, members };
+  const ctx: AppContext = { db, config, logger, mailer, objects, payments, members, siteLists };
   const server = await new Promise<Server>((resolve, reject) => {
     const s = createApp(ctx).listen(config.port, config.host);
     s.once("listening", () => resolve(s));

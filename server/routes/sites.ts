@@ -7,7 +7,8 @@ import { AssignSurveyorsSchema, CreateSiteSchema, InviteClientSchema, UpdateSite
 import { actorOf, requireTeam } from "../auth/actor";
 import type { AppContext } from "../context";
 import { HttpError, param, parseInput } from "../errors";
-import { siteFor, teamSitesQuery, type SiteWithAccess } from "../services/site-access";
+import { siteFor, type SiteWithAccess } from "../services/site-access";
+import { uncachedSiteLists } from "../services/site-lists";
 import { inviteClientToSite } from "../services/client-invite";
 
 export function siteView(site: SiteWithAccess) {
@@ -25,11 +26,11 @@ export function siteView(site: SiteWithAccess) {
 
 export function sitesRouter(ctx: AppContext, router: Router = Router()) {
   const { db } = ctx;
-  const sitesOfTeam = teamSitesQuery(db);
+  const siteLists = ctx.siteLists ?? uncachedSiteLists(db);
 
   router.get("/sites", async (_req, res) => {
     const actor = actorOf(res);
-    const visible = (await sitesOfTeam(actor.teamId)).filter((s) => canSeeSite(actor, s)).map(siteView);
+    const visible = (await siteLists.find(actor.teamId))!.filter((s) => canSeeSite(actor, s)).map(siteView);
     res.json({ sites: visible });
   });
 

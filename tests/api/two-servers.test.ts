@@ -71,6 +71,24 @@ describe("two servers, one database", () => {
     expect(back.body.items.find((i: { id: string }) => i.id === roomId).data).toMatchObject({ name: "Wine cellar", notes: "Cool and dry" });
   });
 
+  it("a site renamed or reassigned through one server shows in the other's site list as soon as the notice arrives", async () => {
+    expect(a.ctx.siteLists?.isListening && b.ctx.siteLists?.isListening).toBe(true);
+    const onA = await signInWithPassword(a.url, "imke@lanternfield.test", DEMO_PASSWORD);
+    const onB = await signInWithPassword(b.url, "imke@lanternfield.test", DEMO_PASSWORD);
+    const priyaOnB = await signInWithPassword(b.url, "priya@lanternfield.test", DEMO_PASSWORD);
+    const listed = async (agent: typeof onB) => (await agent.get("/api/sites").expect(200)).body.sites as { id: string; name: string }[];
+    const before = (await listed(onB)).find((s) => s.id === DEMO_SITE_ID)!; // B now remembers the team's list
+    expect((await listed(priyaOnB)).map((s) => s.id)).toContain(DEMO_SITE_ID);
+    await onA.patch(`/api/sites/${DEMO_SITE_ID}`).send({ name: "The Okonkwo-Lindqvist house (east wing)" }).expect(200);
+    await expect.poll(async () => (await listed(onB)).find((s) => s.id === DEMO_SITE_ID)?.name, { timeout: 2000, interval: 20 }).toBe("The Okonkwo-Lindqvist house (east wing)");
+    await onA.put(`/api/sites/${DEMO_SITE_ID}/surveyors`).send({ surveyorIds: [] }).expect(200);
+    await expect.poll(async () => (await listed(priyaOnB)).map((s) => s.id), { timeout: 2000, interval: 20 }).not.toContain(DEMO_SITE_ID);
+    const priyaId = (await onA.get("/api/team/members").expect(200)).body.members.find((m: { email: string }) => m.email === "priya@lanternfield.test").id;
+    await onA.put(`/api/sites/${DEMO_SITE_ID}/surveyors`).send({ surveyorIds: [priyaId] }).expect(200);
+    await onA.patch(`/api/sites/${DEMO_SITE_ID}`).send({ name: before.name }).expect(200);
+    await expect.poll(async () => (await listed(priyaOnB)).find((s) => s.id === DEMO_SITE_ID)?.name, { timeout: 2000, interval: 20 }).toBe(before.name);
+  });
+
   it("a role changed through one server holds on the other as soon as the database's notice arrives", async () => {
     // Both remember members (they listen for the database's notices), so B must hear of A's change.
     expect(a.ctx.members?.isListening && b.ctx.members?.isListening).toBe(true);

@@ -1,0 +1,56 @@
+import type pg from "pg";
+import type { Db } from "../../db/client";
+import type { Logger } from "../logger";
+import { listenForChanges, NoticeCache, uncached, type NoticeDirectory } from "./notice-cache";
+import { teamSitesQuery, type SiteWithAccess } from "./site-access";
+
+/**
+ * Every site of a team with its assigned surveyors, by team id: the list every screen asks for first.
+ * The lists are shared between requests, so they are frozen.
+ */
+export type SiteLists = NoticeDirectory<readonly Readonly<SiteWithAccess>[]>;
+
+export const SITE_LIST_CHANNEL = "site_list_changed";
+
+function lookupOf(db: Db) {
+  const sitesOfTeam = teamSitesQuery(db);
+  return async (teamId: string) => Object.freeze((await sitesOfTeam(teamId)).map((s) => Object.freeze(s)));
+}
+
+/** Every request reads the database: for apps built without a running server (tests, scripts). */
+export function uncachedSiteLists(db: Db): SiteLists {
+  return uncached(lookupOf(db));
+}
+
+/** The site lists of a running server, remembered between requests (see `NoticeCache`). */
+export class SiteListCache extends NoticeCache<readonly Readonly<SiteWithAccess>[]> {
+  constructor(db: Db, options: { maxAgeMs?: number; maxEntries?: number } = {}) {
+    super(lookupOf(db), { maxAgeMs: options.maxAgeMs ?? 60_000, maxEntries: options.maxEntries ?? 1_000 });
+  }
+}
+
+export interface SiteListOptions {
+  connectionString: string;
+  db: Db;
+  logger: Logger;
+  /** The app's pool: heartbeats go out through it, the way any change would arrive. */
+  pool: pg.Pool;
+  maxAgeMs?: number;
+  maxEntries?: number;
+  heartbeatMs?: number;
+  heartbeatTimeoutMs?: number;
+}
+
+/**
+ * Site lists fed by a dedicated connection that LISTENs on `site_list_changed` (see `listenForChanges`).
+ * Any change to a site or to who is assigned to it sends a notice naming the site's team when it
+ * commits (migration 0008); a truncate names every team ("*").
+ */
+export function startSiteLists(options: SiteListOptions): Promise<SiteLists> {
+  return listenForChanges(new SiteListCache(options.db, options), {
+    ...options,
+    channel: SITE_LIST_CHANNEL,
+    applicationName: "dropwise-site-list-changes",
+    what: "site list",
+  });
+}

@@ -1,0 +1,148 @@
+// Each team's site list as a running server remembers it (server/services/site-lists.ts) against real
+// Postgres: the triggers of migration 0008 send a notice for every change to a site or to who is assigned
+// to it, every listening server forgets that team's list, a server whose listening connection is cut
+// reads fresh until it listens again, and a write through a server holds at once at that server.
+import { sql } from "drizzle-orm";
+import pino from "pino";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { DEMO_PASSWORD } from "../../db/demo-accounts";
+import { DEMO_SITE_ID, seedDemoOnce } from "../../db/seed";
+import { createApp } from "../../server/app";
+import { SiteListCache, startSiteLists, type SiteLists } from "../../server/services/site-lists";
+import { signInWithPassword } from "../support/auth-client";
+import { createTestDb, type TestDb } from "../support/test-db";
+import { testContext } from "../support/test-server";
+
+let testDb: TestDb;
+let teamId: string;
+let priyaId: string;
+const logger = pino({ level: "silent" });
+
+beforeAll(async () => {
+  testDb = await createTestDb();
+  await seedDemoOnce(testDb.db);
+  const found = await testDb.db.execute(sql`select team_id, (select id from users where email = 'priya@lanternfield.test') as priya from sites where id = ${DEMO_SITE_ID}`);
+  teamId = found.rows[0].team_id as string;
+  priyaId = found.rows[0].priya as string;
+});
+afterAll(() => testDb.drop());
+
+const lists = () => startSiteLists({ connectionString: testDb.url, db: testDb.db, pool: testDb.db.$client, logger });
+
+/** A change the triggers do not see (replica mode skips them): only a fresh read can know of it. */
+async function silently(change: ReturnType<typeof sql>) {
+  await testDb.db.transaction(async (tx) => {
+    await tx.execute(sql`set local session_replication_role = replica`);
+    await tx.execute(change);
+  });
+}
+
+const demoSite = async (l: SiteLists) => (await l.find(teamId))?.find((s) => s.id === DEMO_SITE_ID);
+const siteNames = async (l: SiteLists) => (await l.find(teamId))?.map((s) => s.name).sort();
+
+describe("site lists", () => {
+  it("remembers a team's list while listening; every server forgets it when a site or an assignment changes", async () => {
+    const [a, b] = await Promise.all([lists(), lists()]);
+    const original = (await demoSite(a))!.name;
+    try {
+      expect(a.isListening && b.isListening).toBe(true);
+      expect((await demoSite(b))?.surveyorIds).toEqual([priyaId]);
+      await silently(sql`update sites set name = 'Renamed unseen' where id = ${DEMO_SITE_ID}`);
+      expect((await demoSite(a))?.name).toBe(original); // remembered: no notice was sent
+      await silently(sql`update sites set name = ${original} where id = ${DEMO_SITE_ID}`);
+
+      await testDb.db.execute(sql`update sites set address = '12 Quarry Lane' where id = ${DEMO_SITE_ID}`);
+      await expect.poll(async () => (await demoSite(a))?.address, { timeout: 2000, interval: 10 }).toBe("12 Quarry Lane");
+      await expect.poll(async () => (await demoSite(b))?.address, { timeout: 2000, interval: 10 }).toBe("12 Quarry Lane");
+
+      await testDb.db.execute(sql`delete from site_assignments where site_id = ${DEMO_SITE_ID}`);
+      await expect.poll(async () => (await demoSite(b))?.surveyorIds, { timeout: 2000, interval: 10 }).toEqual([]);
+      await testDb.db.execute(sql`insert into site_assignments (site_id, user_id) values (${DEMO_SITE_ID}, ${priyaId})`);
+      await expect.poll(async () => (await demoSite(b))?.surveyorIds, { timeout: 2000, interval: 10 }).toEqual([priyaId]);
+
+      await testDb.db.execute(sql`insert into sites (id, team_id, name) values ('site_shed', ${teamId}, 'Garden shed')`);
+      await expect.poll(() => siteNames(a), { timeout: 2000, interval: 10 }).toContain("Garden shed");
+      await testDb.db.execute(sql`delete from sites where id = 'site_shed'`);
+      await expect.poll(() => siteNames(a), { timeout: 2000, interval: 10 }).not.toContain("Garden shed");
+
+      // A truncate names no row: every team's list is forgotten.
+      await demoSite(a);
+      await testDb.db.execute(sql`truncate site_assignments`);
+      await expect.poll(async () => (await demoSite(a))?.surveyorIds, { timeout: 2000, interval: 10 }).toEqual([]);
+    } finally {
+      await testDb.db.execute(sql`insert into site_assignments (site_id, user_id) values (${DEMO_SITE_ID}, ${priyaId}) on conflict do nothing`);
+      await testDb.db.execute(sql`update sites set address = '' where id = ${DEMO_SITE_ID}`);
+      await a.close();
+      await b.close();
+    }
+  });
+
+  it("keeps the lists it hands out from being changed by a caller", async () => {
+    const a = await lists();
+    try {
+      const list = (await a.find(teamId))!;
+      expect(Object.isFrozen(list) && Object.isFrozen(list[0])).toBe(true);
+    } finally {
+      await a.close();
+    }
+  });
+
+  it("reads fresh while its listening connection is gone, and remembers again once it listens again", async () => {
+    const a = await lists();
+    const original = (await demoSite(a))!.name;
+    try {
+      await testDb.db.execute(sql`select pg_terminate_backend(pid) from pg_stat_activity where application_name = 'dropwise-site-list-changes' and datname = current_database()`);
+      await expect.poll(() => a.isListening, { timeout: 2000, interval: 10 }).toBe(false);
+      await silently(sql`update sites set name = 'Renamed while deaf' where id = ${DEMO_SITE_ID}`);
+      expect((await demoSite(a))?.name).toBe("Renamed while deaf"); // nothing remembered while deaf
+      await expect.poll(() => a.isListening, { timeout: 5000, interval: 50 }).toBe(true);
+      await demoSite(a);
+      await silently(sql`update sites set name = 'Renamed unseen' where id = ${DEMO_SITE_ID}`);
+      expect((await demoSite(a))?.name).toBe("Renamed while deaf"); // remembering again
+    } finally {
+      await silently(sql`update sites set name = ${original} where id = ${DEMO_SITE_ID}`);
+      await a.close();
+    }
+  });
+
+  it("closes its connection when the server stops", async () => {
+    const a = await lists();
+    await a.close();
+    const open = async () =>
+      (await testDb.db.execute(sql`select count(*)::int as n from pg_stat_activity where application_name = 'dropwise-site-list-changes' and datname = current_database()`)).rows[0].n;
+    await expect.poll(open, { timeout: 2000, interval: 20 }).toBe(0);
+  });
+});
+
+describe("a server's own site changes", () => {
+  // A cache that is listening but never hears a notice: only this server's own forgetting can make a change visible.
+  it("hold at the next read on the server that made them", async () => {
+    const siteLists = new SiteListCache(testDb.db);
+    siteLists.setListening(true);
+    const app = createApp({ ...testContext(testDb.db), siteLists });
+    const designer = await signInWithPassword(app, "tomas@lanternfield.test", DEMO_PASSWORD);
+    const priya = await signInWithPassword(app, "priya@lanternfield.test", DEMO_PASSWORD);
+    const listed = async (agent: typeof priya) => (await agent.get("/api/sites").expect(200)).body.sites as { id: string; name: string }[];
+    const original = (await listed(designer)).find((s) => s.id === DEMO_SITE_ID)!.name;
+    expect((await listed(priya)).map((s) => s.id)).toEqual([DEMO_SITE_ID]);
+    try {
+      await designer.patch(`/api/sites/${DEMO_SITE_ID}`).send({ name: "The house on Quarry Lane" }).expect(200);
+      expect((await listed(priya)).find((s) => s.id === DEMO_SITE_ID)?.name).toBe("The house on Quarry Lane");
+
+      await designer.put(`/api/sites/${DEMO_SITE_ID}/surveyors`).send({ surveyorIds: [] }).expect(200);
+      expect(await listed(priya)).toEqual([]);
+      await designer.put(`/api/sites/${DEMO_SITE_ID}/surveyors`).send({ surveyorIds: [priyaId] }).expect(200);
+      expect((await listed(priya)).map((s) => s.id)).toEqual([DEMO_SITE_ID]);
+
+      const created = (await designer.post("/api/sites").send({ name: "Boathouse", address: "", units: "metric" }).expect(201)).body.site;
+      expect((await listed(designer)).map((s) => s.id)).toContain(created.id);
+      await silently(sql`delete from sites where id = ${created.id}`);
+
+      // A refused write changes nothing, and the list stays right.
+      await designer.patch(`/api/sites/${DEMO_SITE_ID}`).send({ name: "" }).expect(400);
+      expect((await listed(priya)).find((s) => s.id === DEMO_SITE_ID)?.name).toBe("The house on Quarry Lane");
+    } finally {
+      await silently(sql`update sites set name = ${original} where id = ${DEMO_SITE_ID}`);
+    }
+  });
+});

@@ -1,20 +1,24 @@
 import type { RequestHandler } from "express";
 import type { SiteLists } from "../services/site-lists";
 
-const READS = new Set(["GET", "HEAD", "OPTIONS"]);
+const READ_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
+/** Posted, but reads: they change no site. */
+const READ_POSTS = new Set(["/sync/pull", "/rules/evaluate"]);
 
 /**
- * A member's write through this server holds at their next read here: the writer's team's site list is
- * forgotten when the write begins (so a list read while it runs is not kept) and again when its answer
- * goes out (so the next read is fresh), before the database's notice arrives. Other servers learn of the
- * change from that notice. Runs after the actor is known.
+ * A member's write through this server holds at their next read here, before the database's notice
+ * arrives: when its answer goes out (or the connection closes first), the writer's team's site list is
+ * forgotten, along with any read of it still on its way. Other servers learn of the change from the
+ * notice, as does this one for a write whose writer hung up before it committed. Runs after the actor
+ * is known.
  */
 export function writesRefreshSiteLists(siteLists: SiteLists | undefined): RequestHandler {
   return (req, res, next) => {
     const teamId = res.locals.actor?.teamId;
-    if (siteLists === undefined || teamId === undefined || READS.has(req.method)) return next();
-    siteLists.forget(teamId);
-    res.once("finish", () => siteLists.forget(teamId));
+    if (siteLists === undefined || teamId === undefined || READ_METHODS.has(req.method) || READ_POSTS.has(req.path)) return next();
+    const forget = () => siteLists.forget(teamId);
+    res.once("finish", forget);
+    res.once("close", forget);
     next();
   };
 }

@@ -36,8 +36,13 @@ const HEARTBEAT_PREFIX = "heartbeat:";
  */
 export class NoticeCache<V> implements NoticeDirectory<V> {
   private readonly entries = new Map<string, { value: V; readAt: number }>();
-  /** Bumped by every notice and by every loss of the listening connection. */
-  private generation = 0;
+  /** Counts every forgetting; a read remembers the count it started at. */
+  private tick = 0;
+  /** When each key was last forgotten, and when every key was (a "*" notice, a lost connection). */
+  private readonly forgottenAt = new Map<string, number>();
+  private allForgottenAt = 0;
+  /** Reads on their way; once none are, no forgetting can overtake one and `forgottenAt` is emptied. */
+  private inFlight = 0;
   private listening = false;
 
   constructor(
@@ -50,26 +55,37 @@ export class NoticeCache<V> implements NoticeDirectory<V> {
       const hit = this.entries.get(key);
       if (hit !== undefined && Date.now() - hit.readAt < this.options.maxAgeMs) return hit.value;
     }
-    const generation = this.generation;
+    const startedAt = this.tick;
     const readAt = Date.now();
-    const value = await this.lookup(key);
-    if (value !== undefined && this.listening && generation === this.generation) {
+    this.inFlight++;
+    let value: V | undefined;
+    try {
+      value = await this.lookup(key);
+    } finally {
+      this.inFlight--;
+    }
+    // Kept only if nothing forgot this key (or every key) while it was on its way.
+    const overtaken = this.allForgottenAt > startedAt || (this.forgottenAt.get(key) ?? 0) > startedAt;
+    if (value !== undefined && this.listening && !overtaken) {
       this.entries.delete(key);
       if (this.entries.size >= this.options.maxEntries) this.entries.delete(this.entries.keys().next().value!);
       this.entries.set(key, { value, readAt });
     }
+    if (this.inFlight === 0) this.forgottenAt.clear();
     return value;
   }
 
   forget(key: string): void {
-    this.generation++;
     this.entries.delete(key);
+    if (this.inFlight === 0) return; // no read on its way to overtake
+    if (this.forgottenAt.size >= this.options.maxEntries) this.forgetAll();
+    else this.forgottenAt.set(key, ++this.tick);
   }
 
-  /** A notice from the database: one key, or "*" for every key (heartbeats are not notices of change). */
+  /** A notice from the database: one key, or "*" (or nothing) for every key; heartbeats are not notices of change. */
   changed(payload: string): void {
     if (payload.startsWith(HEARTBEAT_PREFIX)) return;
-    if (payload === "*") this.forgetAll();
+    if (payload === "*" || payload === "") this.forgetAll();
     else this.forget(payload);
   }
 
@@ -84,7 +100,8 @@ export class NoticeCache<V> implements NoticeDirectory<V> {
   }
 
   private forgetAll(): void {
-    this.generation++;
+    this.allForgottenAt = ++this.tick;
+    this.forgottenAt.clear();
     this.entries.clear();
   }
 

@@ -6,15 +6,24 @@ import { teamSitesQuery, type SiteWithAccess } from "./site-access";
 
 /**
  * Every site of a team with its assigned surveyors, by team id: the list every screen asks for first.
- * The lists are shared between requests, so they are frozen.
+ * The lists are shared between requests, so they are frozen (all but their dates).
  */
 export type SiteLists = NoticeDirectory<readonly Readonly<SiteWithAccess>[]>;
 
 export const SITE_LIST_CHANNEL = "site_list_changed";
 
+/** Freeze a row and the arrays and plain objects inside it (its settings, its surveyors). */
+function deepFreeze<T>(value: T): T {
+  if (value !== null && typeof value === "object" && !Object.isFrozen(value) && (Array.isArray(value) || Object.getPrototypeOf(value) === Object.prototype)) {
+    for (const v of Object.values(value)) deepFreeze(v);
+    Object.freeze(value);
+  }
+  return value;
+}
+
 function lookupOf(db: Db) {
   const sitesOfTeam = teamSitesQuery(db);
-  return async (teamId: string) => Object.freeze((await sitesOfTeam(teamId)).map((s) => Object.freeze(s)));
+  return async (teamId: string) => deepFreeze(await sitesOfTeam(teamId));
 }
 
 /** Every request reads the database: for apps built without a running server (tests, scripts). */

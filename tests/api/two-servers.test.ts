@@ -79,13 +79,16 @@ describe("two servers, one database", () => {
     const listed = async (agent: typeof onB) => (await agent.get("/api/sites").expect(200)).body.sites as { id: string; name: string }[];
     const before = (await listed(onB)).find((s) => s.id === DEMO_SITE_ID)!; // B now remembers the team's list
     expect((await listed(priyaOnB)).map((s) => s.id)).toContain(DEMO_SITE_ID);
-    await onA.patch(`/api/sites/${DEMO_SITE_ID}`).send({ name: "The Okonkwo-Lindqvist house (east wing)" }).expect(200);
-    await expect.poll(async () => (await listed(onB)).find((s) => s.id === DEMO_SITE_ID)?.name, { timeout: 2000, interval: 20 }).toBe("The Okonkwo-Lindqvist house (east wing)");
-    await onA.put(`/api/sites/${DEMO_SITE_ID}/surveyors`).send({ surveyorIds: [] }).expect(200);
-    await expect.poll(async () => (await listed(priyaOnB)).map((s) => s.id), { timeout: 2000, interval: 20 }).not.toContain(DEMO_SITE_ID);
     const priyaId = (await onA.get("/api/team/members").expect(200)).body.members.find((m: { email: string }) => m.email === "priya@lanternfield.test").id;
-    await onA.put(`/api/sites/${DEMO_SITE_ID}/surveyors`).send({ surveyorIds: [priyaId] }).expect(200);
-    await onA.patch(`/api/sites/${DEMO_SITE_ID}`).send({ name: before.name }).expect(200);
+    try {
+      await onA.patch(`/api/sites/${DEMO_SITE_ID}`).send({ name: "The Okonkwo-Lindqvist house (east wing)" }).expect(200);
+      await expect.poll(async () => (await listed(onB)).find((s) => s.id === DEMO_SITE_ID)?.name, { timeout: 2000, interval: 20 }).toBe("The Okonkwo-Lindqvist house (east wing)");
+      await onA.put(`/api/sites/${DEMO_SITE_ID}/surveyors`).send({ surveyorIds: [] }).expect(200);
+      await expect.poll(async () => (await listed(priyaOnB)).map((s) => s.id), { timeout: 2000, interval: 20 }).not.toContain(DEMO_SITE_ID);
+    } finally {
+      await onA.put(`/api/sites/${DEMO_SITE_ID}/surveyors`).send({ surveyorIds: [priyaId] }).expect(200);
+      await onA.patch(`/api/sites/${DEMO_SITE_ID}`).send({ name: before.name }).expect(200);
+    }
     await expect.poll(async () => (await listed(priyaOnB)).find((s) => s.id === DEMO_SITE_ID)?.name, { timeout: 2000, interval: 20 }).toBe(before.name);
   });
 

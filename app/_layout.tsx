@@ -1,7 +1,7 @@
 import { AppProviders } from "@/components/app-providers";
 import { Stack } from "expo-router";
 
-export { ErrorBoundary } from "expo-router";
+export { ErrorScreen as ErrorBoundary } from "@/components/shell/error-screen";
 
 export default function RootLayout() {
   return (

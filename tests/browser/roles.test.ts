@@ -2,6 +2,8 @@ import { describe, expect, it } from "vitest";
 import { PHONE, screenshot, watchPage } from "../support/browser";
 import { signInByLinkThroughUi, signInThroughUi } from "../support/browser-auth";
 import { serverAndBrowser } from "../support/browser-suite";
+import { DEMO_SITE_ID } from "../../db/seed";
+import { demoSiteInput } from "../../survey/demo-site";
 
 const suite = serverAndBrowser();
 
@@ -23,6 +25,14 @@ describe("each demo role at phone size sees its own navigation", () => {
       const links = await page.getByRole("navigation", { name: "Main" }).getByRole("link").allInnerTexts();
       expect(links.map((l) => l.trim())).toEqual(nav);
       await screenshot(page, `role-${role}-phone`);
+      if (role === "client") {
+        // The walk's rooms and devices are the team's: their addresses take the homeowner to the scope.
+        for (const path of [`rooms/${demoSiteInput.rooms[0].id}`, `devices/${demoSiteInput.devices[0].id}`]) {
+          await page.goto(`${suite.server.url}/sites/${DEMO_SITE_ID}/${path}`, { waitUntil: "networkidle" });
+          await page.waitForURL(`**/sites/${DEMO_SITE_ID}/report`);
+          await page.getByRole("navigation", { name: "Main" }).waitFor();
+        }
+      }
       expect(watch.problems).toEqual([]);
       await context.close();
     });

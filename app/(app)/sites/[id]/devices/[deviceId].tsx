@@ -1,1 +1,10 @@
-export { DeviceScreen as default } from "@/components/walk/device-screen";
+import { TeamOnly } from "@/components/site/team-only";
+import { DeviceScreen } from "@/components/walk/device-screen";
+
+export default function DeviceRoute() {
+  return (
+    <TeamOnly>
+      <DeviceScreen />
+    </TeamOnly>
+  );
+}

@@ -1,5 +1,6 @@
 // Forms for the closet's power sources and battery backup. Percentages are typed as percent and
-// stored as fractions; every field the server refuses is marked with its message.
+// stored as fractions; a field that cannot be read as typed is marked before anything is sent, and
+// every field the server refuses is marked with its message.
 import { useState } from "react";
 import { Pressable, StyleSheet, View } from "react-native";
 import { Button } from "@/components/ui/button";
@@ -9,12 +10,11 @@ import { AppText } from "@/components/ui/text";
 import { colors, fonts, radius, space } from "@/constants/theme";
 import { useSaveClosetItem } from "@/hooks/queries/closet";
 import type { Plan } from "@/hooks/queries/plan";
+import { TypedFields } from "@/survey/typed-numbers";
 import type { FieldErrors } from "@/survey/validation";
 import { ApiError } from "@/sync/http";
 
 type SourceKind = "poe_switch" | "injector" | "outlet";
-const num = (s: string) => (s.trim() === "" ? undefined : Number(s.replace(",", ".")));
-const pct = (s: string) => (s.trim() === "" ? undefined : Number(s.replace(",", ".")) / 100);
 const str = (x: unknown) => (x === undefined || x === null ? "" : String(x));
 const asPct = (x: unknown) => (typeof x === "number" ? String(Math.round(x * 1000) / 10) : "");
 
@@ -45,7 +45,12 @@ function useClosetSave(siteId: string, kind: "sources" | "batteries", onDone: ()
       },
     );
   };
-  return { submit, errors, message, busy: save.isPending };
+  /** Mark the fields that could not be read as typed; nothing is sent. */
+  const refuse = (fieldErrors: FieldErrors) => {
+    setErrors(fieldErrors);
+    setMessage("Check the marked fields: nothing was saved.");
+  };
+  return { submit, refuse, errors, message, busy: save.isPending };
 }
 
 export function SourceForm({ siteId, item, kind: newKind, onDone }: { siteId: string; item?: Plan["closet"]["sources"][number]; kind?: SourceKind; onDone: () => void }) {
@@ -57,14 +62,29 @@ export function SourceForm({ siteId, item, kind: newKind, onDone }: { siteId: st
   const [ports, setPorts] = useState(str(kind === "poe_switch" ? data.poePorts : data.ports ?? (kind === "injector" ? 1 : "")));
   const [own, setOwn] = useState(str(data.ownDrawW));
   const [eff, setEff] = useState(asPct(kind === "poe_switch" ? data.supplyEfficiency : data.efficiency));
-  const { submit, errors, message, busy } = useClosetSave(siteId, "sources", onDone);
+  const { submit, refuse, errors, message, busy } = useClosetSave(siteId, "sources", onDone);
   const e = (k: string) => errors[k];
 
   const save = () => {
+    const typed = new TypedFields();
     const fields: Record<string, unknown> = { kind, name: name.trim() };
-    if (kind !== "outlet") fields.poeType = num(poeType) ?? null;
-    if (kind === "poe_switch") Object.assign(fields, { budgetW: num(budget) ?? null, poePorts: num(ports) ?? null, ownDrawW: num(own) ?? null, supplyEfficiency: pct(eff) ?? null });
-    if (kind === "injector") Object.assign(fields, { budgetW: num(budget) ?? null, ports: num(ports) ?? null, efficiency: pct(eff) ?? null });
+    if (kind !== "outlet") fields.poeType = typed.number("poeType", poeType, "PoE type", "2") ?? null;
+    if (kind === "poe_switch") {
+      Object.assign(fields, {
+        budgetW: typed.number("budgetW", budget, "PoE budget", "120") ?? null,
+        poePorts: typed.number("poePorts", ports, "PoE ports", "8") ?? null,
+        ownDrawW: typed.number("ownDrawW", own, "Own draw", "15") ?? null,
+        supplyEfficiency: typed.percent("supplyEfficiency", eff, "Supply efficiency") ?? null,
+      });
+    }
+    if (kind === "injector") {
+      Object.assign(fields, {
+        budgetW: typed.number("budgetW", budget, "Budget", "30") ?? null,
+        ports: typed.number("ports", ports, "PoE ports", "1") ?? null,
+        efficiency: typed.percent("efficiency", eff, "Efficiency") ?? null,
+      });
+    }
+    if (!typed.ok) return refuse(typed.errors);
     // A new item sends only what was filled in; an edit clears what was emptied.
     if (!item) for (const k of Object.keys(fields)) if (fields[k] === null) delete fields[k];
     submit(item?.id, fields);
@@ -110,20 +130,27 @@ export function BatteryForm({ siteId, plan, item, onDone }: { siteId: string; pl
   const [age, setAge] = useState(asPct(data.ageFactor));
   const [feeds, setFeeds] = useState<string[]>((data.feeds as string[] | undefined) ?? []);
   const [loads, setLoads] = useState<LoadRow[]>(((data.otherLoads as { name: string; watts: number }[] | undefined) ?? []).map((l) => ({ name: l.name, watts: String(l.watts) })));
-  const { submit, errors, message, busy } = useClosetSave(siteId, "batteries", onDone);
+  const { submit, refuse, errors, message, busy } = useClosetSave(siteId, "batteries", onDone);
   const e = (k: string) => errors[k] ?? (k === "capacity" ? undefined : undefined);
   const sources = plan.closet.sources.filter((s) => s.valid);
 
   const save = () => {
+    const typed = new TypedFields();
     const fields: Record<string, unknown> = {
       name: name.trim(),
-      capacity: by === "wh" ? { by, wh: num(wh) } : { by, volts: num(volts), ah: num(ah) },
-      inverterEfficiency: pct(inv) ?? null,
-      depthOfDischarge: pct(dod) ?? null,
-      ageFactor: pct(age) ?? null,
+      capacity: by === "wh"
+        ? { by, wh: typed.number("capacity.wh", wh, "Capacity", "1500") }
+        : { by, volts: typed.number("capacity.volts", volts, "Battery voltage", "12"), ah: typed.number("capacity.ah", ah, "Capacity", "9") },
+      inverterEfficiency: typed.percent("inverterEfficiency", inv, "Inverter efficiency") ?? null,
+      depthOfDischarge: typed.percent("depthOfDischarge", dod, "Depth of discharge") ?? null,
+      ageFactor: typed.percent("ageFactor", age, "Age derate") ?? null,
       feeds,
-      otherLoads: loads.filter((l) => l.name.trim() || l.watts.trim()).map((l) => ({ name: l.name.trim(), watts: num(l.watts) })),
+      otherLoads: loads
+        .map((l, i) => ({ l, i }))
+        .filter(({ l }) => l.name.trim() || l.watts.trim())
+        .map(({ l, i }) => ({ name: l.name.trim(), watts: typed.number(`otherLoads.${i}.watts`, l.watts, "Draw", "10") })),
     };
+    if (!typed.ok) return refuse(typed.errors);
     if (!item) for (const k of Object.keys(fields)) if (fields[k] === null) delete fields[k];
     submit(item?.id, fields);
   };

@@ -10,6 +10,7 @@ import type { Plan } from "@/hooks/queries/plan";
 import { MATERIAL_GROUP_NAMES, MATERIAL_GROUPS } from "@/survey/materials";
 import { ApiError } from "@/sync/http";
 import { money } from "./plan-words";
+import { parseTypedNumber } from "@/survey/typed-numbers";
 
 function download(url: string) {
   if (Platform.OS !== "web") return;
@@ -32,8 +33,7 @@ export function MaterialsPanel({ siteId, plan, wide, editable }: { siteId: strin
     const text = drafts[key];
     if (text === undefined) return;
     const current = plan.prices[key];
-    const trimmed = text.trim().replace(",", ".");
-    const value = trimmed === "" ? null : Number(trimmed);
+    const value = parseTypedNumber(text) ?? null;
     if (value !== null && (current === value)) return;
     if (value === null && current === undefined) return;
     if (value !== null && !Number.isFinite(value)) {

@@ -81,9 +81,22 @@ describe("the designer's desk", () => {
     await add.getByRole("button", { name: "Add to the closet" }).click();
     await add.getByText(/PoE budget cannot be negative/).first().waitFor();
     expect(await add.getByRole("textbox", { name: "PoE budget" }).getAttribute("aria-invalid")).toBe("true");
+    // Typed as percent and read as percent; what is not a number is marked, never saved as nothing.
     await add.getByRole("textbox", { name: "PoE budget" }).fill("60");
+    await add.getByRole("textbox", { name: "Own draw" }).fill("abc");
+    await add.getByRole("textbox", { name: "Supply efficiency" }).fill("150");
+    await add.getByRole("button", { name: "Add to the closet" }).click();
+    await add.getByText("Own draw must be a number, e.g. 15.").waitFor();
+    await add.getByText(/Supply efficiency is a percentage above 0 and at most 100 \(got 150\)/).waitFor();
+    expect(await add.getByRole("textbox", { name: "Supply efficiency" }).getAttribute("aria-invalid")).toBe("true");
+    await add.getByRole("textbox", { name: "Own draw" }).fill("6");
+    await add.getByRole("textbox", { name: "Supply efficiency" }).fill("85");
     await add.getByRole("button", { name: "Add to the closet" }).click();
     await page.getByRole("table", { name: "Ports of Garage switch" }).waitFor();
+    await page.getByText(/own draw 6 W/).waitFor();
+    await page.getByRole("button", { name: "Edit Garage switch" }).click();
+    expect(await page.getByLabel("Edit Garage switch").getByRole("textbox", { name: "Supply efficiency" }).inputValue()).toBe("85");
+    await page.getByLabel("Edit Garage switch").getByRole("button", { name: "Cancel" }).click();
 
     const before = await chartLabel(page, "sw-closet");
     await page.getByRole("button", { name: "Move Bedroom 2 desk switch" }).click();

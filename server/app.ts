@@ -28,16 +28,23 @@ import { teamRouter } from "./routes/team";
 import { requireSignedIn } from "./auth/actor";
 import { webRouter } from "./web";
 
-function limiter(limit: number, message: string) {
+function limiter(limit: number, message: string, options: { skipSuccessfulRequests?: boolean; requestWasSuccessful?: (req: express.Request, res: express.Response) => boolean } = {}) {
   return rateLimit({
     windowMs: 15 * 60 * 1000,
     limit,
     standardHeaders: "draft-8",
     legacyHeaders: false,
+    ...options,
     handler: () => {
       throw new HttpError(429, "too_many_attempts", message);
     },
   });
+}
+
+/** A password sign-in worked when its answer sets a session cookie (a refused one answers with an error address instead). */
+function startedSession(_req: express.Request, res: express.Response): boolean {
+  const cookies = res.getHeader("set-cookie");
+  return ([] as (string | number)[]).concat(cookies ?? []).some((c) => /^(__Secure-)?authjs\.session-token=[^;]/.test(String(c)));
 }
 
 /** API answers carry one member's data: no cache (browser or proxy) may keep them. */
@@ -65,8 +72,11 @@ export function createApp(ctx: AppContext) {
   app.use(pinHost(config.publicOrigin));
 
   const authConfig = createAuthConfig(ctx, ctx.mailer);
-  const signInLimiter = limiter(config.authRateLimit, "Too many sign-in attempts from this address. Wait 15 minutes and try again.");
-  app.post(["/auth/callback/credentials", "/auth/signin/nodemailer"], signInLimiter);
+  // Wrong passwords count against the address; sign-ins that work do not, so a team behind one office
+  // connection is not locked out by signing in. Every e-mailed link counts (each one sends mail).
+  const tooMany = "Too many sign-in attempts from this address. Wait 15 minutes and try again.";
+  app.post("/auth/callback/credentials", limiter(config.authRateLimit, tooMany, { skipSuccessfulRequests: true, requestWasSuccessful: startedSession }));
+  app.post("/auth/signin/nodemailer", limiter(config.authRateLimit, tooMany));
   app.use("/auth", ExpressAuth(authConfig));
 
   // Signed webhooks need the raw body: before the JSON parser.

@@ -112,6 +112,19 @@ describe("clients sign in by an e-mailed link through the local SMTP sink", () =
 });
 
 describe("sign-in rate limit", () => {
+  it("counts wrong passwords, not sign-ins that work: a team behind one address keeps signing in", async () => {
+    const limited = await startTestServer({ config: { authRateLimit: 3 } });
+    try {
+      for (let i = 0; i < 6; i++) await signInWithPassword(limited.url, ADMIN, DEMO_PASSWORD);
+      const agent = request.agent(limited.url);
+      for (let i = 0; i < 3; i++) await tryPasswordSignIn(agent, ADMIN, "wrong-password");
+      const token = await csrfToken(agent);
+      await agent.post("/auth/callback/credentials").type("form").send({ email: ADMIN, password: DEMO_PASSWORD, csrfToken: token }).expect(429);
+    } finally {
+      await limited.stop();
+    }
+  });
+
   it("answers 429 with a clear message after too many attempts", async () => {
     const limited = await startTestServer({ config: { authRateLimit: 3 } });
     try {

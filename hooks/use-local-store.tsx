@@ -30,7 +30,24 @@ export const localKeys = {
   notices: () => [...localKeys.root, "notices"] as const,
 };
 
-export type LocalStoreState = { status: "opening" } | { status: "ready" } | { status: "failed"; message: string };
+export type LocalStoreState = { status: "opening" } | { status: "ready" } | { status: "failed"; message: string; inAnotherTab: boolean };
+
+/**
+ * The browser keeps a walk's store open in one tab at a time. The tab that opened it holds this lock
+ * for as long as it lives, so a tab that cannot open the store can tell whether another tab has it.
+ */
+const STORE_LOCK = "dropwise-walk-store";
+
+function holdStoreLock(): void {
+  if (typeof navigator === "undefined" || !navigator.locks) return;
+  void navigator.locks.request(STORE_LOCK, () => new Promise<never>(() => {})).catch(() => undefined);
+}
+
+async function storeHeldElsewhere(): Promise<boolean> {
+  if (typeof navigator === "undefined" || !navigator.locks) return false;
+  const { held = [] } = await navigator.locks.query().catch(() => ({ held: [] as LockInfo[] }));
+  return held.some((l) => l.name === STORE_LOCK);
+}
 
 function openStore(userId: string): Promise<LocalStore> {
   return openUserDatabase(userId).then((db) => LocalStore.open(db));
@@ -90,13 +107,17 @@ export function LocalStoreProvider({ userId, children, fallback }: { userId: str
           onSynced: () => void qc.invalidateQueries({ queryKey: localKeys.root }),
         });
         opening.started(runner);
+        holdStoreLock();
         setCurrent(runner);
         setState({ status: "ready" });
         window.addEventListener("online", onOnline);
         void runner.syncNow();
       },
       (err: unknown) => {
-        if (!disposed) setState({ status: "failed", message: err instanceof Error ? err.message : String(err) });
+        const message = err instanceof Error ? err.message : String(err);
+        void storeHeldElsewhere().then((inAnotherTab) => {
+          if (!disposed) setState({ status: "failed", message, inAnotherTab });
+        });
       },
     );
     return () => {

@@ -3,7 +3,7 @@ import { ActivityIndicator, View } from "react-native";
 import { AppShell } from "@/components/shell/app-shell";
 import { navItemsFor } from "@/components/shell/nav-items";
 import { OfflineBadge } from "@/components/shell/session-badge";
-import { Banner } from "@/components/ui/banner";
+import { StoreUnavailable } from "@/components/shell/store-unavailable";
 import { colors, space } from "@/constants/theme";
 import { useSession } from "@/hooks/queries/me";
 import { LocalStoreProvider } from "@/hooks/use-local-store";
@@ -35,7 +35,7 @@ export default function SignedInLayout() {
       userId={me.user.id}
       fallback={(state) => (
         <Centered>
-          {state.status === "failed" ? <Banner tone="danger" title="This browser cannot keep a walk offline">{state.message}</Banner> : <ActivityIndicator color={colors.slate800} aria-label="Loading" />}
+          {state.status === "failed" ? <StoreUnavailable inAnotherTab={state.inAnotherTab} message={state.message} /> : <ActivityIndicator color={colors.slate800} aria-label="Loading" />}
         </Centered>
       )}
     >

@@ -121,7 +121,7 @@ export function MaterialsPanel({ siteId, plan, wide, editable }: { siteId: strin
           );
         })}
         <View style={[styles.tr, styles.foot]} role="row">
-          <AppText style={[styles.thText, { flex: 1 }]}>
+          <AppText style={[styles.thText, styles.footText, { flex: 1 }]}>
             Total{m.unpricedCount ? ` (${m.unpricedCount} line${m.unpricedCount === 1 ? "" : "s"} without a price)` : ""}
           </AppText>
           <AppText testID="materials-total" style={[styles.total, { fontFamily: fonts.heavy, fontSize: 18 }]}>{money(m.total)}</AppText>
@@ -146,4 +146,5 @@ const styles = StyleSheet.create({
   input: { borderWidth: 1.5, borderColor: colors.line, borderRadius: radius.sm, paddingHorizontal: space.sm, minHeight: 36, fontFamily: fonts.regular, fontSize: 15, color: colors.ink, textAlign: "right", backgroundColor: colors.card },
   inputBad: { borderColor: colors.danger, backgroundColor: colors.dangerBg },
   foot: { backgroundColor: colors.copper100, borderBottomWidth: 0 },
+  footText: { color: colors.ink },
 });

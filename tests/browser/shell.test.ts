@@ -27,6 +27,21 @@ describe("the app shell", () => {
     await context.close();
   });
 
+  it("a second tab says the walk is open in the first, and opens it once the first is closed", async () => {
+    const context = await suite.browser.newContext({ viewport: PHONE });
+    const first = await context.newPage();
+    await signInThroughUi(first, suite.server, "priya@lanternfield.test");
+    await first.getByText("Okonkwo-Lindqvist house").waitFor();
+    const second = await context.newPage();
+    await second.goto(`${suite.server.url}/`, { waitUntil: "networkidle" });
+    await second.getByText("Dropwise is open in another tab").waitFor();
+    await screenshot(second, "second-tab-phone");
+    await first.close();
+    await second.getByRole("button", { name: "Try again" }).click();
+    await second.getByText("Okonkwo-Lindqvist house").waitFor();
+    await context.close();
+  });
+
   it("at phone size shows a bottom navigation", async () => {
     const context = await suite.browser.newContext({ viewport: PHONE });
     const page = await context.newPage();

@@ -152,8 +152,20 @@ export function defaultSplitter(device: Device, base: DeviceEvaluation): Splitte
   return { volts, amps: splitterRatingAmps(minimumAmps(base.needW, volts)), plug: devicePlug(device).label };
 }
 
+/** The class a standard injector at the device must serve: the device's own, or the least covering its need. */
+export function localInjectorClass(device: Device, base: DeviceEvaluation): PoeClass {
+  const i = device.input;
+  return base.poe?.poeClass ?? (i.type === "poe" ? i.class : undefined) ?? classForPdPower(Math.min(base.needW, MAX_PD_POWER_W))!;
+}
+
+export function injectorClassWords(poeClass: PoeClass): string {
+  const type = POE_CLASSES[poeClass].minType;
+  return `Class ${poeClass}, ${POE_TYPES[type].standardName}${type >= 3 ? ` Type ${type}` : ""} or better`;
+}
+
 function outletVia(device: Device): OutletPlan["via"] {
   const i = device.input;
+  if (i.type === "poe") return "poe_injector"; // it takes power only over its cable: a standard injector at the outlet
   if (i.type === "passive_poe") return "own_passive_injector";
   if (i.type === "ac_plug") return "plug";
   if (i.type === "terminal_block" && i.current === "ac") return "transformer";
@@ -289,6 +301,9 @@ export function applyDecision(device: Device, base: DeviceEvaluation, d: Decisio
   } else {
     const via = outletVia(device);
     const electrician = d.method === "new_outlet";
+    if (via === "poe_injector" && needW > MAX_PD_POWER_W + 1e-9) {
+      bad("method", `It needs ${formatWatts(needW)}, more than PoE can deliver to a device (${formatWatts(MAX_PD_POWER_W)}), and it takes power only over its network cable.`);
+    }
     outlet = { via, location: via === "own_passive_injector" ? "closet" : "device", distanceM: device.outletDistanceM ?? null, electrician };
     cable = dataCable(device, needW, settings);
     mergeCable(b, cable, false);
@@ -297,6 +312,9 @@ export function applyDecision(device: Device, base: DeviceEvaluation, d: Decisio
       b.reasons.push(`Its own documented ${formatNumber((input as { volts: number }).volts)} V injector plugs into ${electrician ? "a new outlet" : "an outlet"} at the closet; never into a standard PoE port or other gear.`);
     } else if (via === "transformer") {
       addCaution(b, CAUTIONS.doorbell_transformer);
+    } else if (via === "poe_injector" && input.type === "poe") {
+      const injectorClass = localInjectorClass(device, base);
+      b.reasons.push(`It takes power only over its network cable, so a standard PoE injector next to it (${injectorClassWords(injectorClass)}) plugs into ${electrician ? "the new outlet" : "an existing outlet"} and feeds it; the run to the closet carries data only.`);
     }
     if (electrician) {
       addCaution(b, CAUTIONS.mains_electrician);
@@ -304,7 +322,7 @@ export function applyDecision(device: Device, base: DeviceEvaluation, d: Decisio
       if (device.mustStayUp) b.reasons.push("It must keep working in a power cut: put the new outlet on a circuit fed by a battery backup, or it will go down.");
     } else {
       b.reasons.push(via === "plug" ? "It plugs into an existing outlet." : via === "transformer" ? "It keeps its existing transformer wiring." : via === "adapter" ? "It keeps using its own adapter in an existing outlet." : "");
-      if (via === "adapter" || via === "plug") {
+      if (via === "adapter" || via === "plug" || via === "poe_injector") {
         const far = device.outletDistanceM === undefined || device.outletDistanceM > settings.nearOutletM;
         if (far) {
           b.warnings.push({

@@ -11,10 +11,12 @@
 // - The electrician: each new outlet or doorbell transformer (mains work, licensed electrician, local code).
 // Each line has a price key, the same on every site for the same thing, so a unit price carries over.
 import * as v from "valibot";
+import { injectorClassWords, localInjectorClass } from "./decisions";
 import type { Site } from "./model/site";
 import { orderLengthM, type SiteEvaluation } from "./rules/evaluate-site";
 import { CABLE_CATEGORY_NAMES, type CableCategory } from "./standards/cabling";
 import { PLANNING } from "./standards/planning-defaults";
+import type { PoeClass } from "./standards/poe-classes";
 import { POE_TYPES, type PoeType } from "./standards/poe-types";
 import { formatNumber, metresToFeet, type UnitSystem } from "./units";
 
@@ -136,6 +138,27 @@ export function buildMaterials(site: Site, evaluation: SiteEvaluation): Material
       unit: "each",
       deviceIds: s.deviceIds,
       note: s.plug.includes("polarity unknown") ? "Check the device's plug polarity before buying." : "Check plug size and polarity against the device before connecting.",
+    });
+  }
+
+  // A PoE device the designer put on an outlet takes a standard injector next to it, by the class it serves.
+  const localInjectors = new Map<PoeClass, string[]>();
+  for (const e of evaluation.devices) {
+    const device = e.outlet?.via === "poe_injector" ? deviceById.get(e.deviceId) : undefined;
+    if (device === undefined) continue;
+    const c = localInjectorClass(device, e);
+    localInjectors.set(c, [...(localInjectors.get(c) ?? []), e.deviceId]);
+  }
+  for (const [c, ids] of [...localInjectors].sort((a, b) => a[0] - b[0])) {
+    lines.push({
+      key: `injector-at-device:class${c}`,
+      group: "injectors",
+      item: `PoE injector at the device, ${injectorClassWords(c)}`,
+      detail: names(ids.map(deviceName)),
+      quantity: ids.length,
+      unit: "each",
+      deviceIds: ids,
+      note: "Plugs into the outlet next to the device. A standard (802.3) injector only, never a passive one.",
     });
   }
 

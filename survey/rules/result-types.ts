@@ -131,7 +131,7 @@ export interface SplitterPlan {
 
 export interface OutletPlan {
   /** How the device is fed from the outlet. */
-  readonly via: 'adapter' | 'plug' | 'own_passive_injector' | 'transformer';
+  readonly via: 'adapter' | 'plug' | 'own_passive_injector' | 'transformer' | 'poe_injector';
   /** Where the outlet is: next to the device, or at the closet (passive injectors). */
   readonly location: 'device' | 'closet';
   readonly distanceM: number | null;

@@ -8,7 +8,7 @@ import { planDevice } from './recommend-device';
 import { RECOMMENDATION_VALUES, type DeviceEvaluation, type OutletPlan, type PlugSpec, type Recommendation } from './result-types';
 
 /** How an outlet-fed device is fed, by code (0: not from an outlet). */
-const VIAS: readonly (OutletPlan['via'] | null)[] = [null, 'adapter', 'plug', 'own_passive_injector', 'transformer'];
+const VIAS: readonly (OutletPlan['via'] | null)[] = [null, 'adapter', 'plug', 'own_passive_injector', 'transformer', 'poe_injector'];
 
 /** The code of each value: its place in `values` (a plain object reads faster than a Map here). */
 function codeOf<T extends string>(values: readonly (T | null)[]): Readonly<Record<T, number>> {

@@ -128,6 +128,9 @@ describe("a decision changes the evaluation and is kept", () => {
     expect(device(p, "sw-bed2")).toMatchObject({ recommendation: "new_outlet", poe: null, placement: null });
     expect(sw.rows.map((r) => r.deviceId)).not.toContain("sw-bed2");
     expect(p.materials.lines.find((l) => l.key === "electrician:new-outlet")!.deviceIds).toContain("sw-bed2");
+    // It takes power only over its cable: a standard injector next to it, plugged into the new outlet.
+    expect(device(p, "sw-bed2").outlet).toMatchObject({ via: "poe_injector" });
+    expect(p.materials.lines.find((l) => l.key === "injector-at-device:class4")!.deviceIds).toEqual(["sw-bed2"]);
     expect(device(p, "sw-bed2").cautions.map((c) => c.id)).toContain("mains_electrician");
     // The battery carries less, so it lasts longer.
     expect(p.batteries[0].runtimeMinutes!).toBeGreaterThan(before.batteries[0].runtimeMinutes!);

@@ -4,6 +4,7 @@ import { applyDecision, applyDecisions, DecisionInputSchema } from "../../survey
 import { demoSite } from "../../survey/demo-site";
 import { evaluateDevice } from "../../survey/rules/recommend-device";
 import { evaluateSite } from "../../survey/rules/evaluate-site";
+import { buildMaterials } from "../../survey/materials";
 
 const dev = (id: string) => demoSite.devices.find((d) => d.id === id)!;
 const baseOf = (id: string) => evaluateDevice(dev(id), demoSite);
@@ -61,6 +62,21 @@ describe("applying a decision", () => {
     const newer = decideOn("ap-living", { method: "new_outlet", reason: "x" });
     expect(newer.ok && newer.evaluation.cautions.map((c) => c.id)).toContain("mains_electrician");
     expect(newer.ok && newer.evaluation.poe).toBeNull();
+  });
+
+  it("a PoE device on an outlet is fed by a standard injector next to it, never by an adapter it does not have", () => {
+    // ap-living states Class 4; Class 4 needs at least an 802.3at (Type 2) port (poe-facts §1.3, the IEEE 802.3 class table).
+    const r = decideOn("ap-living", { method: "existing_outlet", reason: "local outlet on the ceiling" });
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    expect(r.evaluation.outlet).toMatchObject({ via: "poe_injector", location: "device", electrician: false });
+    expect(r.evaluation.reasons.join(" ")).toContain("a standard PoE injector next to it (Class 4, 802.3at or better) plugs into an existing outlet");
+    expect(r.evaluation.reasons.join(" ")).not.toMatch(/adapter/);
+    const site = { ...demoSite, devices: demoSite.devices };
+    const base = demoSite.devices.map((d) => evaluateDevice(d, demoSite));
+    const applied = applyDecisions(site, base, new Map([["ap-living", { method: "existing_outlet" as const, reason: "local outlet" }], ["sw-bed2", { method: "new_outlet" as const, reason: "own outlet" }]]));
+    const lines = buildMaterials(demoSite, evaluateSite(demoSite, applied.devices));
+    expect(lines.find((l) => l.key === "injector-at-device:class4")).toMatchObject({ group: "injectors", quantity: 2, deviceIds: ["ap-living", "sw-bed2"] });
   });
 
   it("PoE over a run that is too long is marked as failing", () => {

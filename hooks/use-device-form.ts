@@ -4,7 +4,7 @@ import { useCallback, useEffect, useMemo, useState } from "react";
 import type { SiteItem } from "@/survey/capture";
 import type { UnitSystem } from "@/survey/units";
 import { walkAdvice, type WalkSiteMeta } from "@/survey/walk/advice";
-import { changedFields, deviceToForm, devicePatch, draftData, FIELD_KEYS, type DeviceForm, type FormErrors, type FormKey } from "@/survey/walk/device-form";
+import { adviceWaitsFor, changedFields, deviceToForm, devicePatch, draftData, FIELD_KEYS, type DeviceForm, type FormErrors, type FormKey } from "@/survey/walk/device-form";
 import { deviceGapList } from "@/survey/walk/gaps";
 
 type Data = Record<string, unknown>;
@@ -72,13 +72,17 @@ export function useDeviceForm(opts: { deviceId: string; stored: Data; units: Uni
   const draft = useMemo(() => draftData(stored, state.current, units), [stored, state.current, units]);
   // Keyed by the draft's contents: typing that changes nothing valid does not re-run the rules.
   const draftKey = JSON.stringify(draft);
+  const waiting = useMemo(() => adviceWaitsFor(state.initial, state.current, units), [state, units]);
+  const waitingKey = JSON.stringify(waiting);
   const advice = useMemo(() => {
     const data = JSON.parse(draftKey) as Data;
+    const waitsFor = JSON.parse(waitingKey) as string[];
+    if (waitsFor.length > 0) return { evaluation: null, refused: null, waitsFor, gaps: deviceGapList(data).map((g) => g.text) };
     const others = items.filter((i) => i.id !== deviceId);
     const mine: SiteItem = { id: deviceId, siteId: meta.id, kind: "device", data, deleted: false, version: 0 };
     const result = walkAdvice(meta, [...others, mine]);
-    return { evaluation: result.byDevice.get(deviceId) ?? null, refused: result.refused.get(deviceId) ?? null, gaps: deviceGapList(data).map((g) => g.text) };
-  }, [draftKey, items, meta, deviceId]);
+    return { evaluation: result.byDevice.get(deviceId) ?? null, refused: result.refused.get(deviceId) ?? null, waitsFor, gaps: deviceGapList(data).map((g) => g.text) };
+  }, [draftKey, waitingKey, items, meta, deviceId]);
 
   async function submit(): Promise<SaveOutcome> {
     const { patch, check, held } = devicePatch(state.initial, state.current, units);

@@ -28,7 +28,7 @@ export function AdviceBadge({ advice, gaps }: { advice: DeviceEvaluation | null;
 }
 
 /** The instant advice for one device: what powers it and why, with its warnings and safety cautions. */
-export function AdviceCard({ advice, gaps, refused, draft }: { advice: DeviceEvaluation | null; gaps: readonly string[]; refused: string | null; draft?: boolean }) {
+export function AdviceCard({ advice, gaps, refused, waitsFor = [], draft }: { advice: DeviceEvaluation | null; gaps: readonly string[]; refused: string | null; waitsFor?: readonly string[]; draft?: boolean }) {
   return (
     <Card role="region" aria-label="Advice" style={styles.card}>
       <View style={styles.head}>
@@ -36,7 +36,12 @@ export function AdviceCard({ advice, gaps, refused, draft }: { advice: DeviceEva
           {draft ? "Advice for what is on screen (not saved yet)" : "Advice"}
         </AppText>
       </View>
-      {advice ? (
+      {waitsFor.length > 0 ? (
+        <View style={{ gap: space.sm }}>
+          <AppText>The advice waits until these fields are right:</AppText>
+          <GapList lines={waitsFor} label="Fields the advice waits for" />
+        </View>
+      ) : advice ? (
         <>
           <View style={[styles.label, { borderLeftColor: toneColor(advice.recommendation) }]}>
             <AppText variant="heading" aria-label={`Recommendation: ${advice.label}`}>

@@ -97,7 +97,7 @@ function DeviceEditor({ siteId, deviceId, site, walk, items, photos, back }: { s
     return known ? known.id : form.barrelOuter || form.barrelInner ? "other" : undefined;
   })();
 
-  const advice = <AdviceCard advice={f.advice.evaluation} gaps={f.advice.gaps} refused={f.advice.refused} draft={f.dirty.length > 0} />;
+  const advice = <AdviceCard advice={f.advice.evaluation} gaps={f.advice.gaps} refused={f.advice.refused} waitsFor={f.advice.waitsFor} draft={f.dirty.length > 0} />;
 
   const saveBar = (
     <View style={{ gap: space.sm }}>

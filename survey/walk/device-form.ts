@@ -267,6 +267,33 @@ export function devicePatch(initial: DeviceForm, current: DeviceForm, units: Uni
  * The device as the form has it now, for live advice: stored data with every valid field of the
  * form on top (bad or unfinished fields keep their stored value).
  */
+/**
+ * What the live advice waits for: the messages of the fields changed on screen that do not pass yet.
+ * Until they do, advice worked out from the stored values would describe another device (say, the
+ * PoE input it had before passive PoE was picked), so none is given.
+ */
+export function adviceWaitsFor(initial: DeviceForm, current: DeviceForm, units: UnitSystem): string[] {
+  const { check, held } = devicePatch(initial, current, units);
+  const messages: string[] = [];
+  for (const field of held) {
+    for (const k of FIELD_KEYS[field] ?? []) {
+      for (const m of check.errors[k] ?? []) {
+        const line = FORM_KEY_LABELS[k] ? `${FORM_KEY_LABELS[k]}: ${m}` : m;
+        if (!messages.includes(line)) messages.push(line);
+      }
+    }
+  }
+  return messages;
+}
+
+/** The form's fields as the device screen labels them. */
+const FORM_KEY_LABELS: Partial<Record<FormKey, string>> = {
+  name: 'Name', kind: 'Kind', roomId: 'Room', mount: 'Mount point', watts: 'Power need', volts: 'Adapter volts', amps: 'Adapter amps',
+  inputType: 'How it takes power', poeClass: 'PoE class', poeStandard: 'PoE standard', passiveVolts: 'Passive PoE volts',
+  barrelOuter: 'Outer diameter', barrelInner: 'Inner diameter', polarity: 'Polarity', barrelVolts: 'Barrel volts', terminalVolts: 'Terminal volts',
+  outletDistance: 'Nearest outlet distance', cableAccess: 'Cable access', runLength: 'Cable run to the closet', runCategory: 'Cable category',
+};
+
 export function draftData(stored: Data, current: DeviceForm, units: UnitSystem): Data {
   const check = checkDeviceForm(current, units);
   const out: Data = { ...stored };

@@ -107,6 +107,13 @@ describe("capturing a walk on the phone", () => {
     await page.getByText("Saved on this phone.", { exact: true }).waitFor();
     await advice.getByText("PoE (Class 2, 802.3af port)").waitFor();
     await advice.getByText(/It takes power over its network cable \(PoE\)/).waitFor();
+    // Passive PoE picked before its volts: no advice from the stored PoE input, only what it waits for.
+    await page.getByRole("radio", { name: "Passive PoE" }).click();
+    await advice.getByText("The advice waits until these fields are right:").waitFor();
+    await advice.getByText(/^Passive PoE volts: /).waitFor();
+    expect(await advice.getByText("PoE (Class 2, 802.3af port)").count()).toBe(0);
+    await page.getByRole("radio", { name: "PoE (802.3af/at/bt)" }).click();
+    await advice.getByText("PoE (Class 2, 802.3af port)").waitFor();
     expect(await page.getByText("typical", { exact: true }).count()).toBe(0);
     await page.getByRole("heading", { name: "Bathroom camera" }).scrollIntoViewIfNeeded();
     await screenshot(page, "capture-device-phone");

@@ -4,7 +4,7 @@ import { demoSite, demoSiteInput } from '../../survey/demo-site';
 import { evaluateSite } from '../../survey/rules/evaluate-site';
 import { walkAdvice } from '../../survey/walk/advice';
 import { describeValue } from '../../survey/walk/describe';
-import { checkDeviceForm, deviceToForm, devicePatch, draftData, formToFields, parseNumber } from '../../survey/walk/device-form';
+import { adviceWaitsFor, checkDeviceForm, deviceToForm, devicePatch, draftData, formToFields, parseNumber } from '../../survey/walk/device-form';
 import { nextFreeName } from '../../survey/walk/words';
 
 const demoItems: SiteItem[] = itemsOfSite(demoSiteInput).map((i) => ({ ...i, siteId: 's', deleted: false, version: 1 }));
@@ -120,5 +120,20 @@ describe('names', () => {
   it('numbers a room type already taken', () => {
     expect(nextFreeName('Kitchen', ['Hall'])).toBe('Kitchen');
     expect(nextFreeName('Bedroom', ['Bedroom', 'bedroom 2'])).toBe('Bedroom 3');
+  });
+});
+
+describe('the live advice of the device form', () => {
+  it('waits while a changed field does not pass, rather than advising from the stored values', () => {
+    const initial = deviceToForm(device('ap-living'), 'metric'); // stored as native PoE, Class 4
+    expect(adviceWaitsFor(initial, initial, 'metric')).toEqual([]);
+    const passive = { ...initial, inputType: 'passive_poe' as const, passiveVolts: '' };
+    const waiting = adviceWaitsFor(initial, passive, 'metric');
+    expect(waiting.length).toBeGreaterThan(0);
+    expect(waiting.join(' ')).toMatch(/volt/i);
+    // The stored input would still read as native PoE: that is the advice the form must not show.
+    expect((draftData(device('ap-living'), passive, 'metric').input as { type: string }).type).toBe('poe');
+    expect(adviceWaitsFor(initial, { ...initial, watts: '-5' }, 'metric').join(' ')).toMatch(/power|watt/i);
+    expect(adviceWaitsFor(initial, { ...passive, passiveVolts: '24' }, 'metric')).toEqual([]);
   });
 });

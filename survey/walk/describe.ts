@@ -19,6 +19,19 @@ export function fieldWord(field: string): string {
   return DEVICE_FIELD_WORDS[field] ?? OTHER_FIELD_WORDS[field] ?? field;
 }
 
+/** Fields whose parts are saved together: one bad part holds the others back too. */
+const SAVED_TOGETHER: Readonly<Record<string, string>> = {
+  power: 'its figure and how it is printed',
+  input: 'how it takes power and its details',
+  run: 'its length, category, gauge and copper-clad aluminium',
+};
+
+/** A field that was held back, in words that say what else waits with it. */
+export function heldFieldWords(field: string): string {
+  const together = SAVED_TOGETHER[field];
+  return together ? `${fieldWord(field)} (${together} are saved together)` : fieldWord(field);
+}
+
 const n = (x: unknown) => (typeof x === 'number' ? formatNumber(x, 2) : '?');
 
 /** One stored value in words, lengths in the site's units. */

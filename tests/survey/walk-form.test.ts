@@ -3,7 +3,7 @@ import { itemsOfSite, type SiteItem } from '../../survey/capture';
 import { demoSite, demoSiteInput } from '../../survey/demo-site';
 import { evaluateSite } from '../../survey/rules/evaluate-site';
 import { walkAdvice } from '../../survey/walk/advice';
-import { describeValue } from '../../survey/walk/describe';
+import { describeValue, fieldWord, heldFieldWords } from '../../survey/walk/describe';
 import { adviceWaitsFor, checkDeviceForm, deviceToForm, devicePatch, draftData, formToFields, parseNumber } from '../../survey/walk/device-form';
 import { nextFreeName } from '../../survey/walk/words';
 
@@ -135,5 +135,12 @@ describe('the live advice of the device form', () => {
     expect((draftData(device('ap-living'), passive, 'metric').input as { type: string }).type).toBe('poe');
     expect(adviceWaitsFor(initial, { ...initial, watts: '-5' }, 'metric').join(' ')).toMatch(/power|watt/i);
     expect(adviceWaitsFor(initial, { ...passive, passiveVolts: '24' }, 'metric')).toEqual([]);
+  });
+});
+
+describe('a held field in words', () => {
+  it('says which parts wait together with it', () => {
+    expect(heldFieldWords('run')).toBe('cable run (its length, category, gauge and copper-clad aluminium are saved together)');
+    expect(heldFieldWords('name')).toBe(fieldWord('name'));
   });
 });

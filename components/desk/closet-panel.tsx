@@ -103,14 +103,14 @@ export function ClosetPanel({ siteId, plan, wide, editable }: { siteId: string; 
             </View>
             {isEditing ? <SourceForm siteId={siteId} item={s} onDone={done} /> : null}
             {sw ? (
-              <View style={[styles.split, !wide && { flexDirection: "column" }]}>
-                <View style={{ flex: 1, gap: space.xs }}>
+              <View style={[styles.split, !wide && { flexDirection: "column", alignItems: "stretch" }]}>
+                <View style={wide ? { flex: 1, gap: space.xs } : styles.stacked}>
                   <BudgetChart sw={sw} />
                   {sw.warnings.map((w, i) => <AppText key={i} variant="caption" style={{ color: w.severity === "error" ? colors.danger : colors.warn, fontFamily: fonts.semibold }}>{w.message}</AppText>)}
                   {sw.suggestions.map((t, i) => <AppText key={i} variant="caption" muted>{t}</AppText>)}
                   <AppText variant="caption" muted>Wall draw about {formatNumber(sw.wallDrawW, 1)} W.</AppText>
                 </View>
-                <PortTable sw={sw} editable={editable} onMove={(id) => setMoving(moving === id ? null : id)} moving={moving} />
+                <PortTable sw={sw} editable={editable} onMove={(id) => setMoving(moving === id ? null : id)} moving={moving} narrow={!wide} />
               </View>
             ) : data.kind === "outlet" ? (
               <AppText variant="caption">{outletDevices(s.id).map((d) => d.name).join(", ") || "Nothing is pinned to it."}</AppText>
@@ -171,27 +171,30 @@ export function ClosetPanel({ siteId, plan, wide, editable }: { siteId: string; 
   );
 }
 
-function PortTable({ sw, editable, onMove, moving }: { sw: PlanSwitch; editable: boolean; onMove: (deviceId: string) => void; moving: string | null }) {
+function PortTable({ sw, editable, onMove, moving, narrow }: { sw: PlanSwitch; editable: boolean; onMove: (deviceId: string) => void; moving: string | null; narrow: boolean }) {
   const byPort = new Map(sw.rows.map((r) => [r.port, r]));
+  // On a phone the figures take narrower columns and the device's name gives way (it is cut with "…").
+  const num = [styles.num, narrow && styles.numNarrow];
+  const port = [styles.port, narrow && styles.portNarrow];
   return (
-    <View style={styles.table} role="table" aria-label={`Ports of ${sw.name}`}>
+    <View style={[styles.table, narrow && styles.stacked]} role="table" aria-label={`Ports of ${sw.name}`}>
       <View style={[styles.tr, styles.th]} role="row">
-        <AppText style={[styles.td, styles.port, styles.thText]}>Port</AppText>
-        <AppText style={[styles.td, { flex: 1 }, styles.thText]}>Device</AppText>
-        <AppText style={[styles.td, styles.num, styles.thText]}>Class</AppText>
-        <AppText style={[styles.td, styles.num, styles.thText]}>Set aside</AppText>
-        <AppText style={[styles.td, styles.num, styles.thText]}>Expected</AppText>
+        <AppText style={[styles.td, port, styles.thText]}>Port</AppText>
+        <AppText style={[styles.td, styles.device, styles.thText]}>Device</AppText>
+        <AppText style={[styles.td, num, styles.thText]}>Class</AppText>
+        <AppText style={[styles.td, num, styles.thText]}>Set aside</AppText>
+        <AppText style={[styles.td, num, styles.thText]}>Expected</AppText>
         {editable ? <View style={styles.move} /> : null}
       </View>
       {Array.from({ length: sw.ports }, (_, i) => i + 1).map((p) => {
         const r = byPort.get(p);
         return (
           <View key={p} style={styles.tr} role="row" aria-label={`Port ${p}${r ? `: ${r.deviceName}` : ": free"}`}>
-            <AppText style={[styles.td, styles.port]}>{p}</AppText>
-            <AppText style={[styles.td, { flex: 1, fontFamily: r?.critical ? fonts.bold : fonts.regular }]} numberOfLines={1}>{r ? `${r.deviceName}${r.pinned ? " •" : ""}` : "free"}</AppText>
-            <AppText style={[styles.td, styles.num]}>{r ? r.poeClass : ""}</AppText>
-            <AppText style={[styles.td, styles.num]}>{r ? `${formatNumber(r.reservedW, 1)} W` : ""}</AppText>
-            <AppText style={[styles.td, styles.num]}>{r ? `${formatNumber(r.expectedPseW, 1)} W` : ""}</AppText>
+            <AppText style={[styles.td, port]}>{p}</AppText>
+            <AppText style={[styles.td, styles.device, { fontFamily: r?.critical ? fonts.bold : fonts.regular }]} numberOfLines={1}>{r ? `${r.deviceName}${r.pinned ? " •" : ""}` : "free"}</AppText>
+            <AppText style={[styles.td, num]}>{r ? r.poeClass : ""}</AppText>
+            <AppText style={[styles.td, num]}>{r ? `${formatNumber(r.reservedW, 1)} W` : ""}</AppText>
+            <AppText style={[styles.td, num]}>{r ? `${formatNumber(r.expectedPseW, 1)} W` : ""}</AppText>
             {editable ? (
               <View style={styles.move}>
                 {r ? <Button label={moving === r.deviceId ? "Close" : "Move"} tone="quiet" aria-label={`Move ${r.deviceName}`} onPress={() => onMove(r.deviceId)} style={styles.small} /> : null}
@@ -216,7 +219,12 @@ const styles = StyleSheet.create({
   thText: { fontFamily: fonts.bold, fontSize: 13 },
   td: { paddingHorizontal: space.sm, fontSize: 14 },
   port: { width: 44 },
+  /** Stacked on a phone: each part as tall as its content (side by side they share the width). */
+  stacked: { flexGrow: 0, flexShrink: 0, flexBasis: "auto", gap: space.xs },
+  portNarrow: { width: 40, paddingHorizontal: space.xs },
+  device: { flex: 1, minWidth: 0 },
   num: { width: 78, textAlign: "right" },
+  numNarrow: { width: 66, paddingHorizontal: space.xs },
   move: { width: 72, alignItems: "flex-end" },
   small: { minHeight: 32, paddingHorizontal: space.sm },
   unassigned: { flexDirection: "row", gap: space.md, alignItems: "center" },

@@ -69,12 +69,15 @@ export function MaterialsPanel({ siteId, plan, wide, editable }: { siteId: strin
       </View>
       {message ? <Banner tone="danger">{message}</Banner> : null}
       <View style={styles.table} role="table" aria-label="Materials">
-        <View style={[styles.tr, styles.th, styles.sticky]} role="row">
-          <AppText style={[styles.thText, { flex: 3 }]}>Item</AppText>
+        {/* On a phone each line stacks: the item across the width, its figures in a row below. */}
+        <View style={[styles.tr, styles.th, styles.sticky, !wide && styles.trStacked]} role="row">
+          <AppText style={[styles.thText, wide ? { flex: 3 } : null]}>Item</AppText>
           {wide ? <AppText style={[styles.thText, { flex: 2 }]}>For</AppText> : null}
-          <AppText style={[styles.thText, styles.qty]}>Qty</AppText>
-          <AppText style={[styles.thText, styles.price]}>Unit price</AppText>
-          <AppText style={[styles.thText, styles.total]}>Line total</AppText>
+          <View style={wide ? styles.figures : styles.figuresStacked}>
+            <AppText style={[styles.thText, styles.qty]}>Qty</AppText>
+            <AppText style={[styles.thText, wide ? styles.price : styles.priceStacked]}>Unit price</AppText>
+            <AppText style={[styles.thText, styles.total]}>Line total</AppText>
+          </View>
         </View>
         {MATERIAL_GROUPS.map((g) => {
           const lines = m.lines.filter((l) => l.group === g);
@@ -86,15 +89,16 @@ export function MaterialsPanel({ siteId, plan, wide, editable }: { siteId: strin
                 const err = errors[l.key];
                 const shown = drafts[l.key] ?? (l.unitPrice === null ? "" : money(l.unitPrice).replace(/,/g, ""));
                 return (
-                  <View key={l.key} style={styles.tr} role="row" aria-label={l.item}>
-                    <View style={{ flex: 3, gap: 2 }}>
+                  <View key={l.key} style={[styles.tr, !wide && styles.trStacked]} role="row" aria-label={l.item}>
+                    <View style={wide ? { flex: 3, gap: 2 } : { gap: 2 }}>
                       <AppText style={{ fontFamily: fonts.semibold }}>{l.item}</AppText>
                       {l.note ? <AppText variant="caption" muted>{l.note}</AppText> : null}
                       {!wide ? <AppText variant="caption" muted>{l.detail}</AppText> : null}
                     </View>
                     {wide ? <AppText variant="caption" style={{ flex: 2 }}>{l.detail}</AppText> : null}
+                    <View style={wide ? styles.figures : styles.figuresStacked}>
                     <AppText style={styles.qty}>{l.quantity} {l.unit === "each" ? "" : l.unit}</AppText>
-                    <View style={styles.price}>
+                    <View style={wide ? styles.price : styles.priceStacked}>
                       {editable ? (
                         <TextInput
                           aria-label={`Unit price of ${l.item}`}
@@ -114,6 +118,7 @@ export function MaterialsPanel({ siteId, plan, wide, editable }: { siteId: strin
                       {err ? <AppText role="alert" variant="caption" style={{ color: colors.danger }}>{err.join(" ")}</AppText> : null}
                     </View>
                     <AppText style={[styles.total, { fontFamily: fonts.semibold }]}>{l.lineTotal === null ? "—" : money(l.lineTotal)}</AppText>
+                    </View>
                   </View>
                 );
               })}
@@ -142,6 +147,10 @@ const styles = StyleSheet.create({
   groupText: { fontFamily: fonts.bold, color: colors.slate800 },
   qty: { width: 70, textAlign: "right" },
   price: { width: 110 },
+  priceStacked: { flex: 1 },
+  trStacked: { flexDirection: "column", alignItems: "stretch", gap: space.xs },
+  figures: { flexDirection: "row", alignItems: "center", gap: space.md },
+  figuresStacked: { flexDirection: "row", alignItems: "center", gap: space.md, alignSelf: "stretch" },
   total: { width: 100, textAlign: "right" },
   input: { borderWidth: 1.5, borderColor: colors.line, borderRadius: radius.sm, paddingHorizontal: space.sm, minHeight: 36, fontFamily: fonts.regular, fontSize: 15, color: colors.ink, textAlign: "right", backgroundColor: colors.card },
   inputBad: { borderColor: colors.danger, backgroundColor: colors.dangerBg },

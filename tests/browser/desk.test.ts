@@ -145,6 +145,26 @@ describe("the designer's desk", () => {
     await page.getByText(/On a phone the plan is read-only/).waitFor();
     expect(await page.getByRole("button", { name: /^Override / }).count()).toBe(0);
     await screenshot(page, "desk-plan-phone");
+
+    // The closet's port table and the materials fit the phone's width.
+    await page.getByRole("tab", { name: "Closet" }).click();
+    const ports = page.getByRole("table", { name: "Ports of Closet PoE switch" });
+    await ports.waitFor();
+    const expectedHeader = (await ports.getByText("Expected", { exact: true }).boundingBox())!;
+    expect(expectedHeader.x + expectedHeader.width).toBeLessThanOrEqual(PHONE.width);
+    // Every port's row shows in full: the table is as tall as its rows.
+    const lastPort = (await ports.getByRole("row", { name: /^Port 8/ }).boundingBox())!;
+    const table = (await ports.boundingBox())!;
+    expect(lastPort.y + lastPort.height).toBeLessThanOrEqual(table.y + table.height + 0.5);
+    await ports.scrollIntoViewIfNeeded();
+    await screenshot(page, "desk-closet-phone");
+    await page.getByRole("tab", { name: "Materials" }).click();
+    const firstLine = page.getByRole("table", { name: "Materials" }).getByRole("row").nth(1);
+    await firstLine.waitFor();
+    expect((await firstLine.boundingBox())!.width).toBeLessThanOrEqual(PHONE.width);
+    const item = (await page.getByRole("table", { name: "Materials" }).getByText(/^PoE switch, /).first().boundingBox())!;
+    expect(item.width).toBeGreaterThan(PHONE.width / 2); // the item reads across the width, not a letter per line
+    await screenshot(page, "desk-materials-phone");
     expect(watch.problems).toEqual([]);
     await context.close();
   });

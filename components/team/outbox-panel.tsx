@@ -6,6 +6,11 @@ import { colors, space } from "@/constants/theme";
 import { useOutbox } from "@/hooks/queries/team";
 import { ApiError } from "@/sync/http";
 
+/** An e-mailed sign-in link works once (Auth.js's e-mail callback). */
+function isOneTimeSignIn(link: string): boolean {
+  return link.includes("/auth/callback/");
+}
+
 /** Development: the mail the local SMTP sink captured in place of a real mail service. */
 export function OutboxPanel() {
   const outbox = useOutbox();
@@ -23,9 +28,16 @@ export function OutboxPanel() {
           <AppText variant="label">{m.subject}</AppText>
           <AppText muted variant="caption">{`to ${m.to} · ${new Date(m.receivedAt).toLocaleString()}`}</AppText>
           {m.links.map((l) => (
-            <AppText key={l} role="link" onPress={() => Linking.openURL(l)} style={{ color: colors.copper700, textDecorationLine: "underline" }}>
-              {l}
-            </AppText>
+            <View key={l} style={{ gap: 2 }}>
+              {isOneTimeSignIn(l) ? (
+                <AppText variant="caption" style={{ color: colors.warn }}>
+                  {`A one-time sign-in link for ${m.to}: opening it in this browser uses it up and keeps you signed in as yourself. To act as them, open it in a private window.`}
+                </AppText>
+              ) : null}
+              <AppText role="link" onPress={() => Linking.openURL(l)} style={{ color: colors.copper700, textDecorationLine: "underline" }}>
+                {l}
+              </AppText>
+            </View>
           ))}
         </Card>
       ))}

@@ -32,6 +32,13 @@ describe("each demo role at phone size sees its own navigation", () => {
           await page.waitForURL(`**/sites/${DEMO_SITE_ID}/report`);
           await page.getByRole("navigation", { name: "Main" }).waitFor();
         }
+        // The admin sees the homeowner's captured sign-in mail with a word on what opening its link does.
+        const adminContext = await suite.browser.newContext({ viewport: PHONE });
+        const admin = await adminContext.newPage();
+        await signInThroughUi(admin, suite.server, "imke@lanternfield.test");
+        await admin.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Team" }).click();
+        await admin.getByText(`A one-time sign-in link for ${email}: opening it in this browser uses it up`).first().waitFor();
+        await adminContext.close();
       }
       expect(watch.problems).toEqual([]);
       await context.close();

@@ -49,7 +49,8 @@ export interface ReportContent {
   switches: { id: string; name: string; standard: string; budgetW: number; ceilingW: number; reservedW: number; expectedW: number; ports: number; portsUsed: number; overBudget: boolean }[];
   outage: { deviceId: string; name: string; staysUp: boolean; minutes: number | null; reason: string }[];
   cableRuns: { deviceId: string; name: string; category: string; length: string; ok: boolean; note: string | null }[];
-  materials: { lines: ReportMaterialLine[]; total: number; currency: string };
+  /** `unpricedCount`: lines still without a price (the total covers the priced ones); absent in versions published before it was kept. */
+  materials: { lines: ReportMaterialLine[]; total: number; currency: string; unpricedCount?: number };
   cautions: { id: string; text: string; source: string }[];
   standards: string[];
 }
@@ -71,7 +72,8 @@ export interface ReportInput {
   publishedAt: string;
   evaluation: SiteEvaluation;
   decisions: Record<string, { label: string; reason: string; by: string }>;
-  materials: { lines: ReportMaterialLine[]; total: number; currency: string };
+  /** `unpricedCount`: lines still without a price (the total covers the priced ones); absent in versions published before it was kept. */
+  materials: { lines: ReportMaterialLine[]; total: number; currency: string; unpricedCount?: number };
 }
 
 const round = (n: number, digits = 1) => Math.round(n * 10 ** digits) / 10 ** digits;
@@ -185,4 +187,11 @@ export function canonicalJson(value: unknown): string {
     .filter(([, v]) => v !== undefined)
     .sort(([x], [y]) => (x < y ? -1 : x > y ? 1 : 0));
   return `{${entries.map(([k, v]) => `${JSON.stringify(k)}:${canonicalJson(v)}`).join(",")}}`;
+}
+
+/** The words under a scope's total when some lines have no price yet, or null. */
+export function unpricedNote(materials: { unpricedCount?: number }): string | null {
+  const n = materials.unpricedCount ?? 0;
+  if (n === 0) return null;
+  return `${n} line${n === 1 ? " is" : "s are"} still to be priced: the total covers the priced lines only.`;
 }

@@ -7,6 +7,7 @@ import { Card } from "@/components/ui/card";
 import { AppText } from "@/components/ui/text";
 import { colors, space } from "@/constants/theme";
 import type { ReportView } from "@/hooks/queries/reports";
+import { unpricedNote } from "@/survey/report";
 import { CommentBox } from "./comment-box";
 import { SignOffCard } from "./sign-off-card";
 
@@ -95,6 +96,7 @@ export function ScopeView({ view, isClient }: { view: ReportView; isClient: bool
             </AppText>
             <AppText variant="subheading">{`${content.materials.total.toFixed(2)} ${content.materials.currency}`}</AppText>
           </View>
+          {unpricedNote(content.materials) ? <AppText muted>{unpricedNote(content.materials)}</AppText> : null}
         </Card>
       ) : null}
 

@@ -38,6 +38,7 @@ export async function currentPlan(db: Db, site: SiteWithAccess): Promise<Omit<Re
         total: l.lineTotal ?? 0,
       })),
       total: plan.materials.total,
+      unpricedCount: plan.materials.allLines.filter((l) => l.unitPrice === null).length,
       currency: "USD",
     },
   };

@@ -95,6 +95,10 @@ describe("publishing", () => {
     expect(text).toMatch(/licensed electrician/);
     expect(text).toMatch(/Local codes and the authority having jurisdiction decide/);
     expect(text).toContain("IEEE 802.3af/at/bt");
+    // No unit prices are set in the demo: the total says it covers the priced lines only.
+    const content = (await client.get(`/api/reports/${v1.id}`).expect(200)).body.content;
+    expect(content.materials.unpricedCount).toBe(content.materials.lines.length);
+    expect(text).toContain(`${content.materials.lines.length} lines are still to be priced: the total covers the priced lines only.`);
   });
 
   it("a published version cannot change; republishing makes version 2 and leaves version 1 as it was", async () => {

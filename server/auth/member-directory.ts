@@ -1,7 +1,5 @@
-import type pg from "pg";
 import type { Role } from "../../survey/policy";
-import type { Logger } from "../logger";
-import { listenForChanges, NoticeCache, uncached, type NoticeDirectory, type NoticeLookup } from "../services/notice-cache";
+import { listenForChanges, NoticeCache, uncached, type NoticeCacheStart, type NoticeDirectory, type NoticeLookup } from "../services/notice-cache";
 
 export interface Member {
   userId: string;
@@ -27,16 +25,8 @@ export const MEMBER_CHANNEL = "member_changed";
  */
 export class MemberCache extends NoticeCache<Member> {}
 
-export interface MemberDirectoryOptions {
-  connectionString: string;
+export interface MemberDirectoryOptions extends NoticeCacheStart {
   lookup: MemberLookup;
-  logger: Logger;
-  /** The app's pool: heartbeats go out through it, the way any change would arrive. */
-  pool: pg.Pool;
-  maxAgeMs?: number;
-  maxEntries?: number;
-  heartbeatMs?: number;
-  heartbeatTimeoutMs?: number;
 }
 
 /** A member cache fed by a dedicated connection that LISTENs on `member_changed` (see `listenForChanges`). */

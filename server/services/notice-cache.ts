@@ -110,6 +110,12 @@ export class NoticeCache<V> implements NoticeDirectory<V> {
   }
 }
 
+/** What starting a cache fed by change notices takes: the listener's connection and heartbeat, and the cache's bounds. */
+export interface NoticeCacheStart extends Pick<NoticeListenerOptions, "connectionString" | "logger" | "pool" | "heartbeatMs" | "heartbeatTimeoutMs"> {
+  maxAgeMs?: number;
+  maxEntries?: number;
+}
+
 export interface NoticeListenerOptions {
   connectionString: string;
   /** The channel the triggers send on; its notices name the keys that changed. */

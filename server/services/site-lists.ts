@@ -1,7 +1,5 @@
-import type pg from "pg";
 import type { Db } from "../../db/client";
-import type { Logger } from "../logger";
-import { listenForChanges, NoticeCache, uncached, type NoticeDirectory } from "./notice-cache";
+import { listenForChanges, NoticeCache, uncached, type NoticeCacheStart, type NoticeDirectory } from "./notice-cache";
 import { teamSitesQuery, type SiteWithAccess } from "./site-access";
 
 /**
@@ -38,16 +36,8 @@ export class SiteListCache extends NoticeCache<readonly Readonly<SiteWithAccess>
   }
 }
 
-export interface SiteListOptions {
-  connectionString: string;
+export interface SiteListOptions extends NoticeCacheStart {
   db: Db;
-  logger: Logger;
-  /** The app's pool: heartbeats go out through it, the way any change would arrive. */
-  pool: pg.Pool;
-  maxAgeMs?: number;
-  maxEntries?: number;
-  heartbeatMs?: number;
-  heartbeatTimeoutMs?: number;
 }
 
 /**

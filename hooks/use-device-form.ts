@@ -4,7 +4,7 @@ import { useCallback, useEffect, useMemo, useState } from "react";
 import type { SiteItem } from "@/survey/capture";
 import type { UnitSystem } from "@/survey/units";
 import { walkAdvice, type WalkSiteMeta } from "@/survey/walk/advice";
-import { adviceWaitsFor, changedFields, deviceToForm, devicePatch, draftData, FIELD_KEYS, type DeviceForm, type FormErrors, type FormKey } from "@/survey/walk/device-form";
+import { changedFields, deviceToForm, devicePatch, FIELD_KEYS, liveDraft, type DeviceForm, type FormErrors, type FormKey } from "@/survey/walk/device-form";
 import { deviceGapList } from "@/survey/walk/gaps";
 
 type Data = Record<string, unknown>;
@@ -69,11 +69,10 @@ export function useDeviceForm(opts: { deviceId: string; stored: Data; units: Uni
   const dirty = useMemo(() => changedFields(state.initial, state.current), [state]);
 
   // Live advice for what is on screen: the stored device with every valid field of the form on top.
-  const draft = useMemo(() => draftData(stored, state.current, units), [stored, state.current, units]);
+  const live = useMemo(() => liveDraft(stored, state.initial, state.current, units), [stored, state, units]);
   // Keyed by the draft's contents: typing that changes nothing valid does not re-run the rules.
-  const draftKey = JSON.stringify(draft);
-  const waiting = useMemo(() => adviceWaitsFor(state.initial, state.current, units), [state, units]);
-  const waitingKey = JSON.stringify(waiting);
+  const draftKey = JSON.stringify(live.data);
+  const waitingKey = JSON.stringify(live.waitsFor);
   const advice = useMemo(() => {
     const data = JSON.parse(draftKey) as Data;
     const waitsFor = JSON.parse(waitingKey) as string[];

@@ -273,9 +273,19 @@ export function devicePatch(initial: DeviceForm, current: DeviceForm, units: Uni
  * PoE input it had before passive PoE was picked), so none is given.
  */
 export function adviceWaitsFor(initial: DeviceForm, current: DeviceForm, units: UnitSystem): string[] {
-  const { check, held } = devicePatch(initial, current, units);
+  return waitsForOf(initial, current, checkDeviceForm(current, units));
+}
+
+/** The live advice's input, checking the form once: the draft (`draftData`) and what it waits for (`adviceWaitsFor`). */
+export function liveDraft(stored: Data, initial: DeviceForm, current: DeviceForm, units: UnitSystem): { data: Data; waitsFor: string[] } {
+  const check = checkDeviceForm(current, units);
+  return { data: draftOf(stored, check), waitsFor: waitsForOf(initial, current, check) };
+}
+
+function waitsForOf(initial: DeviceForm, current: DeviceForm, check: FormCheck): string[] {
   const messages: string[] = [];
-  for (const field of held) {
+  for (const field of changedFields(initial, current)) {
+    if (!check.badFields.has(field)) continue;
     for (const k of FIELD_KEYS[field] ?? []) {
       for (const m of check.errors[k] ?? []) {
         const line = FORM_KEY_LABELS[k] ? `${FORM_KEY_LABELS[k]}: ${m}` : m;
@@ -295,7 +305,10 @@ const FORM_KEY_LABELS: Partial<Record<FormKey, string>> = {
 };
 
 export function draftData(stored: Data, current: DeviceForm, units: UnitSystem): Data {
-  const check = checkDeviceForm(current, units);
+  return draftOf(stored, checkDeviceForm(current, units));
+}
+
+function draftOf(stored: Data, check: FormCheck): Data {
   const out: Data = { ...stored };
   for (const [field, value] of Object.entries(check.fields)) {
     if (check.badFields.has(field)) continue;

@@ -195,3 +195,64 @@ export function unpricedNote(materials: { unpricedCount?: number }): string | nu
   if (n === 0) return null;
   return `${n} line${n === 1 ? " is" : "s are"} still to be priced: the total covers the priced lines only.`;
 }
+
+/** The parts of a scope a reader names, in the order the report shows them. */
+const SCOPE_PARTS: readonly { key: keyof ReportContent; words: string }[] = [
+  { key: "site", words: "the site's name or address" },
+  { key: "units", words: "the units" },
+  { key: "rooms", words: "the devices' reasons or warnings" },
+  { key: "switches", words: "the switch budgets" },
+  { key: "outage", words: "what stays up on battery" },
+  { key: "cableRuns", words: "the cable runs" },
+  { key: "materials", words: "the materials or prices" },
+  { key: "cautions", words: "the cautions" },
+];
+
+/** How the plan as it stands now differs from the last published version of its scope. */
+export interface ScopeDrift {
+  sinceVersion: number;
+  /** The homeowner signed that version: their signature covers it, not the plan as it is now. */
+  signed: boolean;
+  changed: boolean;
+  changes: ReportChanges;
+  /** Other parts that differ, in words ("the cable runs"), beyond the devices and the total in `changes`. */
+  otherParts: string[];
+}
+
+/**
+ * Compare a published scope with the scope the plan would publish now (`now`, built with any
+ * version number: the version, publication time and team name are not part of the comparison).
+ */
+export function scopeDrift(published: ReportContent, now: ReportContent, signed: boolean): ScopeDrift {
+  const changes = diffReports(published, now);
+  const devicesNamed = changes.added.length + changes.removed.length + changes.methodChanged.length > 0;
+  const otherParts = SCOPE_PARTS.filter(({ key }) => {
+    if (canonicalJson(published[key]) === canonicalJson(now[key])) return false;
+    // The rooms are the devices: added, removed and re-powered ones are listed already.
+    if (key === "rooms" && devicesNamed) return false;
+    // The total is listed already; lines and prices without a new total are still a change.
+    if (key === "materials" && changes.totalBefore !== changes.totalAfter) return false;
+    return true;
+  }).map((p) => p.words);
+  const changed = devicesNamed || changes.totalBefore !== changes.totalAfter || otherParts.length > 0;
+  return { sinceVersion: published.version, signed, changed, changes, otherParts };
+}
+
+function namesOf(list: { name: string }[]): string {
+  const shown = list.slice(0, 3).map((d) => d.name).join(", ");
+  return list.length > 3 ? `${shown} and ${list.length - 3} more` : shown;
+}
+
+/** What changed, in one sentence a designer reads at a glance; null when nothing did. */
+export function scopeDriftWords(drift: ScopeDrift, money: (x: number) => string): string | null {
+  if (!drift.changed) return null;
+  const c = drift.changes;
+  const parts: string[] = [];
+  if (c.added.length) parts.push(`added ${namesOf(c.added)}`);
+  if (c.removed.length) parts.push(`removed ${namesOf(c.removed)}`);
+  if (c.methodChanged.length) parts.push(`powered differently: ${namesOf(c.methodChanged)}`);
+  if (c.totalBefore !== c.totalAfter) parts.push(`materials total ${money(c.totalBefore)} → ${money(c.totalAfter)}`);
+  if (drift.otherParts.length) parts.push(`${parts.length ? "also " : ""}${drift.otherParts.join(", ")}`);
+  const text = parts.join("; ");
+  return `${text.charAt(0).toUpperCase()}${text.slice(1)}.`;
+}

@@ -2,6 +2,7 @@
 // admins change it on a wide screen; on a phone, and for surveyors, it is read-only.
 import { useState } from "react";
 import { ActivityIndicator, Pressable, StyleSheet, View } from "react-native";
+import { ScopeDriftNotice } from "@/components/report/scope-drift-notice";
 import { Banner } from "@/components/ui/banner";
 import { AppText } from "@/components/ui/text";
 import { colors, fonts, radius, space } from "@/constants/theme";
@@ -33,6 +34,7 @@ export function PlanView({ siteId }: { siteId: string }) {
   const editable = mayEdit && wide;
   return (
     <View style={{ gap: space.lg }}>
+      {mayEdit ? <ScopeDriftNotice scope={p.scope} /> : null}
       <Summary plan={p} wide={wide} />
       {mayEdit && !wide ? <Banner tone="info">On a phone the plan is read-only: open it on a wide screen to change decisions, the closet or prices.</Banner> : null}
       <View style={styles.parts} role="tablist" aria-label="Plan parts">

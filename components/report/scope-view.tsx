@@ -1,5 +1,6 @@
 import { useState } from "react";
 import { StyleSheet, View } from "react-native";
+import { when } from "@/components/desk/plan-words";
 import { Badge } from "@/components/ui/badge";
 import { Banner } from "@/components/ui/banner";
 import { Button } from "@/components/ui/button";
@@ -23,7 +24,7 @@ export function ScopeView({ view, isClient }: { view: ReportView; isClient: bool
   return (
     <View style={{ gap: space.lg }}>
       <Card>
-        <AppText variant="label" color={colors.copper700}>{`Version ${report.version} · published ${new Date(report.publishedAt).toLocaleDateString()}`}</AppText>
+        <AppText variant="label" color={colors.copper700}>{`Version ${report.version} · published ${when(report.publishedAt)}`}</AppText>
         <AppText variant="heading">What this plan does</AppText>
         <AppText>{`${s.devices} devices: ${s.onPoe} on PoE (power and data over one cable), ${s.onSplitters} on PoE with a splitter, ${s.onExistingOutlets} on an existing outlet, ${s.newOutlets} on a new outlet put in by a licensed electrician${s.cannotPower ? `, ${s.cannotPower} that cannot be powered as captured` : ""}.`}</AppText>
         <AppText>

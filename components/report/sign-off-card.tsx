@@ -1,5 +1,6 @@
 import { useState } from "react";
 import { Linking, Pressable, StyleSheet, View } from "react-native";
+import { when } from "@/components/desk/plan-words";
 import { Banner } from "@/components/ui/banner";
 import { Button } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
@@ -22,7 +23,7 @@ export function SignOffCard({ view, isClient }: { view: ReportView; isClient: bo
     return (
       <Card>
         <AppText variant="subheading">Signed</AppText>
-        <AppText>{`Signed by ${view.signoff.typedName} on ${new Date(view.signoff.signedAt).toLocaleString()}.`}</AppText>
+        <AppText>{`Signed by ${view.signoff.typedName} on ${when(view.signoff.signedAt)}.`}</AppText>
         <AppText muted variant="caption">{`Version ${view.report.version} · ${view.signoff.contentHash}`}</AppText>
         {view.deposit ? (
           view.deposit.status === "paid" ? (

@@ -1,6 +1,8 @@
 import { useLocalSearchParams } from "expo-router";
 import { ActivityIndicator, View } from "react-native";
+import { ScopeDriftNotice } from "@/components/report/scope-drift-notice";
 import { ScopeView } from "@/components/report/scope-view";
+import { when } from "@/components/desk/plan-words";
 import { Banner } from "@/components/ui/banner";
 import { Button } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
@@ -9,6 +11,7 @@ import { Icon } from "@/components/ui/icons";
 import { AppText } from "@/components/ui/text";
 import { colors, space } from "@/constants/theme";
 import { useMe } from "@/hooks/queries/me";
+import { usePlan } from "@/hooks/queries/plan";
 import { usePublishReport, useReport, useSiteReports } from "@/hooks/queries/reports";
 import { SiteSectionScreen } from "./site-section-screen";
 
@@ -39,13 +42,14 @@ function ReportSection({ siteId, hasClient }: { siteId: string; hasClient: boole
               ? "Publishing freezes the plan as it is now as a new version, with a fingerprint, and e-mails the homeowner a link to read and sign it."
               : "Invite the homeowner on the Rooms tab first; the scope is e-mailed to them."}
           </AppText>
+          {latest ? <PlanSincePublished siteId={siteId} /> : null}
           {publish.error ? <Banner tone="danger">{publish.error.message}</Banner> : null}
           {publish.data ? <Banner tone="good">{`Version ${publish.data.report.version} published and e-mailed.`}</Banner> : null}
           <Button label={latest ? `Publish version ${latest.version + 1}` : "Publish version 1"} busy={publish.isPending} disabled={!hasClient} onPress={() => publish.mutate(undefined)} />
           {reports.data.length ? (
             <View style={{ gap: 2 }}>
               {reports.data.map((r) => (
-                <AppText key={r.id} variant="caption" muted>{`Version ${r.version} · ${new Date(r.publishedAt).toLocaleString()} · ${r.signedAt ? `signed ${new Date(r.signedAt).toLocaleDateString()}` : "not signed"}`}</AppText>
+                <AppText key={r.id} variant="caption" muted>{`Version ${r.version} · published ${when(r.publishedAt)} · ${r.signedAt ? `signed ${when(r.signedAt)}` : "not signed"}`}</AppText>
               ))}
             </View>
           ) : null}
@@ -66,4 +70,10 @@ function ReportSection({ siteId, hasClient }: { siteId: string; hasClient: boole
       )}
     </View>
   );
+}
+
+/** For the team: whether the plan still matches the last published scope (the plan refreshes by itself). */
+function PlanSincePublished({ siteId }: { siteId: string }) {
+  const plan = usePlan(siteId);
+  return plan.data ? <ScopeDriftNotice scope={plan.data.scope} /> : null;
 }

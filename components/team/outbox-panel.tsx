@@ -1,5 +1,6 @@
 import { Linking, View } from "react-native";
 import { Card } from "@/components/ui/card";
+import { when } from "@/components/desk/plan-words";
 import { AppText } from "@/components/ui/text";
 import { Icon } from "@/components/ui/icons";
 import { colors, space } from "@/constants/theme";
@@ -26,7 +27,7 @@ export function OutboxPanel() {
       {outbox.data?.map((m) => (
         <Card key={m.id}>
           <AppText variant="label">{m.subject}</AppText>
-          <AppText muted variant="caption">{`to ${m.to} · ${new Date(m.receivedAt).toLocaleString()}`}</AppText>
+          <AppText muted variant="caption">{`to ${m.to} · ${when(m.receivedAt)}`}</AppText>
           {m.links.map((l) => (
             <View key={l} style={{ gap: 2 }}>
               {isOneTimeSignIn(l) ? (

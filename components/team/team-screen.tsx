@@ -1,5 +1,6 @@
 import { useState } from "react";
 import { StyleSheet, View } from "react-native";
+import { when } from "@/components/desk/plan-words";
 import * as v from "valibot";
 import { fieldErrors } from "@/survey/validation";
 import { Banner } from "@/components/ui/banner";
@@ -98,7 +99,7 @@ export function TeamScreen() {
               <View style={styles.memberHead}>
                 <View style={{ flex: 1 }}>
                   <AppText>{i.email}</AppText>
-                  <AppText muted variant="caption">{`${i.role} · expires ${new Date(i.expiresAt).toLocaleDateString()}`}</AppText>
+                  <AppText muted variant="caption">{`${i.role} · expires ${when(i.expiresAt)}`}</AppText>
                 </View>
                 <Button tone="quiet" label={`Withdraw invitation for ${i.email}`} onPress={() => revoke.mutate(i.id)} />
               </View>

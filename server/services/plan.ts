@@ -2,7 +2,7 @@
 // runs, with the designer's decisions applied, the materials priced, and the checklist counted.
 import { desc, eq, inArray } from "drizzle-orm";
 import type { Db } from "../../db/client";
-import { decisionHistory, deviceDecisions, items, sitePlans, teams, users } from "../../db/schema";
+import { decisionHistory, deviceDecisions, items, reportVersions, signoffs, sitePlans, teams, users } from "../../db/schema";
 import { assembleSite, type SiteItem } from "../../survey/capture";
 import { applyDecision, applyDecisions, defaultSplitter, POWER_METHODS, type AppliedDecisions, type DecisionCore, type PowerMethod, type SplitterChoice } from "../../survey/decisions";
 import type { CableRun, PowerInput } from "../../survey/model/device";
@@ -15,6 +15,7 @@ import type { PoeClass } from "../../survey/standards/poe-classes";
 import { evaluateDevice } from "../../survey/rules/recommend-device";
 import { evaluateSite, type SiteEvaluation } from "../../survey/rules/evaluate-site";
 import type { DeviceEvaluation, PlanWarning } from "../../survey/rules/result-types";
+import { buildReportContent, scopeDrift, type ReportContent, type ReportInput, type ReportMaterialLine } from "../../survey/report";
 import type { OutageDevice } from "../../survey/rules/battery";
 import { HttpError } from "../errors";
 import type { SiteWithAccess } from "./site-access";
@@ -32,6 +33,8 @@ export interface PlanData {
   prices: Record<string, number>;
   autoPlaced: string[];
   names: Map<string, string>;
+  /** The latest published version of the site's scope, and when the homeowner signed it. */
+  published: { version: number; publishedAt: Date; content: ReportContent; signedAt: Date | null } | null;
 }
 
 /** Serialises plan writes with the team's pushes (same lock order as a push: the team row first). */
@@ -53,6 +56,13 @@ export async function loadPlanData(db: Reader, site: SiteWithAccess): Promise<Pl
   const peopleIds = [...site.surveyorIds, ...(site.clientUserId ? [site.clientUserId] : [])];
   const people = peopleIds.length ? await db.select({ id: users.id, name: users.name, email: users.email }).from(users).where(inArray(users.id, peopleIds)) : [];
   const names = new Map(people.map((p) => [p.id, p.name ?? p.email]));
+  const [published] = await db
+    .select({ version: reportVersions.version, publishedAt: reportVersions.publishedAt, content: reportVersions.content, signedAt: signoffs.signedAt })
+    .from(reportVersions)
+    .leftJoin(signoffs, eq(signoffs.reportId, reportVersions.id))
+    .where(eq(reportVersions.siteId, site.id))
+    .orderBy(desc(reportVersions.version))
+    .limit(1);
   return {
     site,
     items: itemRows,
@@ -61,6 +71,7 @@ export async function loadPlanData(db: Reader, site: SiteWithAccess): Promise<Pl
     prices: Object.fromEntries(Object.entries(plan?.prices ?? {}).map(([k, c]) => [k, c / 100])),
     autoPlaced: plan?.autoPlaced ?? [],
     names,
+    published: published ? { ...published, content: published.content as ReportContent } : null,
   };
 }
 
@@ -277,6 +288,22 @@ export function buildPlanView(data: PlanData) {
   const nameOf = (i: ItemRow) => (typeof i.data.name === "string" ? i.data.name : i.id);
   const incomplete = planned.incompleteDeviceIds.map((id) => ({ id, name: nameOf(live.find((i) => i.id === id)!) }));
   const lastChange = live.reduce<Date | null>((m, i) => (m === null || i.updatedAt > m ? i.updatedAt : m), null);
+  const published = data.published;
+  // The scope the plan would publish now, against the last one published (and maybe signed).
+  const scope = published === null
+    ? null
+    : {
+        publishedAt: published.publishedAt.toISOString(),
+        signedAt: published.signedAt?.toISOString() ?? null,
+        ...scopeDrift(
+          published.content,
+          buildReportContent({
+            ...reportPlanOf(data, site, applied, evaluation, materials),
+            team: published.content.team, version: published.version, publishedAt: published.content.publishedAt,
+          }),
+          published.signedAt !== null,
+        ),
+      };
 
   return {
     site: {
@@ -330,20 +357,22 @@ export function buildPlanView(data: PlanData) {
     materials,
     prices: data.prices,
     autoPlaced: data.autoPlaced,
+    /** The last published scope, and how the plan now differs from it; null before the first. */
+    scope,
   };
 }
 
 export type PlanView = ReturnType<typeof buildPlanView>;
 
+/** The plan in the shape the published report takes, less its version, publication time and team. */
+export type ReportPlan = Omit<ReportInput, "team" | "version" | "publishedAt">;
+
 /**
  * The plan in the shape the published report takes (survey/report.ts): the evaluation with the
  * designer's decisions applied, each decision's label, reason and author, and the priced materials.
- * Unit prices carry no currency in the plan; the report adds its own.
+ * Every line the plan needs is listed; a line without a price yet shows as such rather than vanishing.
  */
-export async function planForReport(db: Reader, site: SiteWithAccess) {
-  const data = await loadPlanData(db, site);
-  const planned = plannableSite(site, data.items);
-  const { applied, evaluation } = evaluatePlan(planned.site, decisionMap(data.decisions));
+function reportPlanOf(data: PlanData, site: Site, applied: AppliedDecisions, evaluation: SiteEvaluation, priced: PricedMaterials): ReportPlan {
   const decisions: Record<string, { label: string; reason: string; by: string }> = {};
   for (const row of data.decisions) {
     const e = applied.devices.find((d) => d.deviceId === row.deviceId);
@@ -351,15 +380,26 @@ export async function planForReport(db: Reader, site: SiteWithAccess) {
     const by = data.history.find((h) => h.deviceId === row.deviceId && h.action === "decided")?.actorName ?? "";
     decisions[row.deviceId] = { label: e.label, reason: row.reason, by };
   }
-  const priced = priceMaterials(buildMaterials(planned.site, evaluation), data.prices);
+  const lines: ReportMaterialLine[] = priced.lines.map((l) => ({
+    key: l.key,
+    description: l.unitPrice === null ? `${l.item} (price to be confirmed)` : l.item,
+    quantity: l.quantity,
+    unit: l.unit,
+    unitPrice: l.unitPrice ?? 0,
+    total: l.lineTotal ?? 0,
+  }));
   return {
-    site: { ...planned.site, address: site.address },
+    site: { ...site, address: data.site.address },
     evaluation,
     decisions,
-    materials: {
-      lines: priced.lines.filter((l) => l.unitPrice !== null).map((l) => ({ key: l.key, description: l.item, quantity: l.quantity, unit: l.unit, unitPrice: l.unitPrice!, total: l.lineTotal! })),
-      allLines: priced.lines,
-      total: priced.total,
-    },
+    materials: { lines, total: priced.total, unpricedCount: priced.lines.filter((l) => l.unitPrice === null).length, currency: "USD" },
   };
+}
+
+/** The plan as it stands now, in the shape the published report takes. */
+export async function planForReport(db: Reader, site: SiteWithAccess): Promise<ReportPlan> {
+  const data = await loadPlanData(db, site);
+  const planned = plannableSite(site, data.items);
+  const { applied, evaluation } = evaluatePlan(planned.site, decisionMap(data.decisions));
+  return reportPlanOf(data, planned.site, applied, evaluation, priceMaterials(buildMaterials(planned.site, evaluation), data.prices));
 }

@@ -5,9 +5,9 @@ import { and, desc, eq, inArray, max } from "drizzle-orm";
 import type { Db } from "../../db/client";
 import { depositSettings, deposits, memberships, reportComments, reportVersions, reportViews, signoffs, sites, teams, users } from "../../db/schema";
 import type { Actor } from "../../survey/policy";
-import { buildReportContent, canonicalJson, diffReports, type ReportContent, type ReportInput } from "../../survey/report";
+import { buildReportContent, canonicalJson, diffReports, type ReportContent } from "../../survey/report";
 import { parseSite } from "../../survey";
-import { planForReport } from "./plan";
+import { planForReport, type ReportPlan } from "./plan";
 import { createSignInLink } from "../auth/sign-in-link";
 import type { AppContext } from "../context";
 import { HttpError, notFound } from "../errors";
@@ -17,31 +17,13 @@ import type { SiteWithAccess } from "./site-access";
 export const hashContent = (content: ReportContent) => createHash("sha256").update(canonicalJson(content)).digest("hex");
 
 /** The plan as it stands now: the site's items and the designer's decisions through the rules, priced. */
-export async function currentPlan(db: Db, site: SiteWithAccess): Promise<Omit<ReportInput, "team" | "version" | "publishedAt">> {
+export async function currentPlan(db: Db, site: SiteWithAccess): Promise<ReportPlan> {
   const plan = await planForReport(db, site);
   const parsed = parseSite(plan.site);
   if (!parsed.ok) {
     throw new HttpError(409, "plan_incomplete", `The plan cannot be published yet: ${parsed.errors[0].path ? `${parsed.errors[0].path}: ` : ""}${parsed.errors[0].message}`);
   }
-  return {
-    site: plan.site,
-    evaluation: plan.evaluation,
-    decisions: plan.decisions,
-    materials: {
-      // Every line the plan needs; a line without a price yet shows as such rather than vanishing.
-      lines: plan.materials.allLines.map((l) => ({
-        key: l.key,
-        description: l.unitPrice === null ? `${l.item} (price to be confirmed)` : l.item,
-        quantity: l.quantity,
-        unit: l.unit,
-        unitPrice: l.unitPrice ?? 0,
-        total: l.lineTotal ?? 0,
-      })),
-      total: plan.materials.total,
-      unpricedCount: plan.materials.allLines.filter((l) => l.unitPrice === null).length,
-      currency: "USD",
-    },
-  };
+  return plan;
 }
 
 export async function publishReport(ctx: AppContext, actor: Actor, site: SiteWithAccess) {

@@ -169,6 +169,38 @@ describe("sign-off", () => {
   });
 });
 
+describe("the plan after its scope was signed", () => {
+  const planScope = async () => (await designer.get(`/api/sites/${DEMO_SITE_ID}/plan`).expect(200)).body.plan.scope;
+
+  it("says nothing changed while the plan is the signed version; a price or a designer decision afterwards shows as a change, and undoing it clears it", async () => {
+    // The sign-off test above signed version 3.
+    const signed = await planScope();
+    expect(signed).toMatchObject({ sinceVersion: 3, signed: true, changed: false, otherParts: [] });
+    expect(signed.signedAt).toEqual(expect.any(String));
+
+    await designer.put(`/api/sites/${DEMO_SITE_ID}/prices`).send({ "wall-plate:1-port": 2.5 }).expect(200);
+    const priced = await planScope();
+    expect(priced.changed).toBe(true);
+    expect(priced.changes.totalBefore).toBe(0);
+    expect(priced.changes.totalAfter).toBeGreaterThan(0);
+
+    const reason = "The homeowner wants it on the outlet behind the television.";
+    await designer.put(`/api/sites/${DEMO_SITE_ID}/devices/ap-living/decision`).send({ method: "existing_outlet", reason }).expect(200);
+    const decided = await planScope();
+    expect(decided.changes.methodChanged).toEqual([expect.objectContaining({ id: "ap-living", before: "PoE (Class 4, 802.3at port)" })]);
+
+    await designer.delete(`/api/sites/${DEMO_SITE_ID}/devices/ap-living/decision`).send({ reason: "Back to the rules' advice." }).expect(200);
+    await designer.put(`/api/sites/${DEMO_SITE_ID}/prices`).send({ "wall-plate:1-port": null }).expect(200);
+    expect(await planScope()).toMatchObject({ sinceVersion: 3, signed: true, changed: false });
+
+    // Publishing the changed plan again makes the new version the one compared, not yet signed.
+    await designer.put(`/api/sites/${DEMO_SITE_ID}/prices`).send({ "wall-plate:1-port": 2.5 }).expect(200);
+    const v4 = await publish();
+    expect(await planScope()).toMatchObject({ sinceVersion: v4.version, signed: false, signedAt: null, changed: false });
+    await designer.put(`/api/sites/${DEMO_SITE_ID}/prices`).send({ "wall-plate:1-port": null }).expect(200);
+  });
+});
+
 describe("deposit", () => {
   it("signing leads to a checkout with the provider's SDK; the signed webhook marks it paid; forged and replayed webhooks are refused; paid survives a restart", async () => {
     await admin.put("/api/team/deposit").send({ enabled: true, amountCents: 25_000, currency: "usd" }).expect(200);

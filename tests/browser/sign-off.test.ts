@@ -48,6 +48,18 @@ describe("the homeowner signs off on a phone", () => {
     await signInThroughUi(dp, suite.server, "tomas@lanternfield.test");
     await dp.getByText("signed", { exact: true }).first().waitFor();
     await screenshot(dp, "desk-signed-desktop");
+
+    // A price set after the sign-off: the plan says the signature covers the older version only.
+    await dp.goto(`${suite.server.url}/sites/${DEMO_SITE_ID}/plan`);
+    await dp.getByRole("tablist", { name: "Plan parts" }).waitFor();
+    expect(await dp.getByText("Changed since the homeowner signed").count()).toBe(0);
+    await designer.put(`/api/sites/${DEMO_SITE_ID}/prices`).send({ "wall-plate:1-port": 2.5 }).expect(200);
+    await dp.reload();
+    await dp.getByText("Changed since the homeowner signed version 1").waitFor();
+    await dp.getByText(/Materials total 0\.00 → .*publish version 2 on the Report tab/).waitFor();
+    await screenshot(dp, "plan-changed-since-signed-desktop");
+    await dp.goto(`${suite.server.url}/sites/${DEMO_SITE_ID}/report`);
+    await dp.getByText("Changed since the homeowner signed version 1").waitFor();
     await desk.close();
   });
 });

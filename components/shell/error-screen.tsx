@@ -25,7 +25,13 @@ export function ErrorScreen({ error, retry }: ErrorBoundaryProps) {
             label="Go to your sites"
             tone="secondary"
             onPress={() => {
-              router.replace("/");
+              try {
+                router.replace("/");
+              } catch {
+                // The navigator itself may be what failed: load the start page afresh instead.
+                if (typeof window !== "undefined") window.location.assign("/");
+                return;
+              }
               void retry();
             }}
           />

@@ -82,15 +82,23 @@ export interface SiteItem {
 export interface AssembledSite {
   /** The site as the rules take it: complete items only. */
   site: SiteInput;
-  /** Devices not complete enough for the rules yet (their gaps say what is missing). */
+  /** Devices left out of the plan: not complete enough for the rules yet (their gaps say what is missing). */
   incompleteDeviceIds: string[];
+}
+
+/** What assembling a site reads of an item (a stored item, or a walk's item as the phone keeps it). */
+export interface AssemblyItem {
+  readonly id: string;
+  readonly kind: string;
+  readonly data: Record<string, unknown>;
+  readonly deleted?: boolean;
 }
 
 /**
  * Builds the rules' Site from a site's captured items. Devices that fail the full device schema
  * are left out (they are gaps, not errors) so the rules can still advise on the rest.
  */
-export function assembleSite(meta: { id: string; name: string; address?: string; closetRoomId: string | null; settings?: Record<string, unknown> }, siteItems: readonly SiteItem[]): AssembledSite {
+export function assembleSite(meta: { id: string; name: string; address?: string; closetRoomId: string | null; settings?: Record<string, unknown> }, siteItems: readonly AssemblyItem[]): AssembledSite {
   const live = siteItems.filter((i) => !i.deleted);
   const pick = (kind: ItemKind): (Record<string, unknown> & { id: string })[] => live.filter((i) => i.kind === kind).map((i) => ({ ...i.data, id: i.id }));
   const floors = pick("floor").filter((f) => v.is(FloorSchema, f));

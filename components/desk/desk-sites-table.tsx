@@ -12,7 +12,8 @@ import { useDeskSites, type DeskSite } from "@/hooks/queries/desk";
 import type { SiteStatus } from "@/hooks/queries/sites";
 import { useBreakpoint } from "@/hooks/use-breakpoint";
 import { SITE_STATUS_LABELS } from "@/survey/team";
-import { when } from "./plan-words";
+import { devicesProgressLabel } from "@/survey/walk/gaps";
+import { when } from "@/components/ui/format";
 
 type SortKey = "name" | "client" | "surveyors" | "status" | "checklist" | "lastSync";
 const STATUS_ORDER: SiteStatus[] = ["surveying", "planning", "out_for_sign_off", "changes_asked", "signed"];
@@ -48,10 +49,10 @@ function Checklist({ s }: { s: DeskSite }) {
   return (
     <View style={{ gap: 3 }}>
       <AppText variant="caption">
-        {s.devices.total === 0 ? "no devices yet" : `${s.devices.complete} of ${s.devices.total} complete`}
+        {devicesProgressLabel({ devices: s.devices.total, devicesComplete: s.devices.complete, devicesLeftOut: s.devices.leftOut })}
       </AppText>
       <View style={styles.track} role="progressbar" aria-label={`Checklist of ${s.name}`} aria-valuemin={0} aria-valuemax={100} aria-valuenow={Math.round(share * 100)}>
-        <View style={[styles.fill, { width: `${Math.round(share * 100)}%`, backgroundColor: s.devices.incomplete ? colors.copper500 : colors.good }]} />
+        <View style={[styles.fill, { width: `${Math.round(share * 100)}%`, backgroundColor: s.devices.complete < s.devices.total ? colors.copper500 : colors.good }]} />
       </View>
     </View>
   );

@@ -11,7 +11,8 @@ import { POWER_METHOD_WORDS, type PowerMethod } from "@/survey/decisions";
 import { formatLength } from "@/survey/units";
 import { RunGauge } from "./budget-chart";
 import { DecisionForm } from "./decision-form";
-import { KIND_WORDS, RECOMMENDATION_TONE, RUN_LENGTH_CODES, SEVERITY_COLOR, when } from "./plan-words";
+import { when } from "@/components/ui/format";
+import { KIND_WORDS, RECOMMENDATION_TONE, RUN_LENGTH_CODES, SEVERITY_COLOR } from "./plan-words";
 
 export function DeviceList({ siteId, plan, wide, editable }: { siteId: string; plan: Plan; wide: boolean; editable: boolean }) {
   const byId = new Map(plan.devices.map((d) => [d.deviceId, d]));
@@ -42,11 +43,11 @@ export function DeviceList({ siteId, plan, wide, editable }: { siteId: string; p
           </View>
         );
       })}
-      {plan.completeness.incomplete > 0 ? (
+      {plan.completeness.leftOut > 0 ? (
         <View style={styles.room}>
           <AppText variant="subheading">Not in the plan yet</AppText>
           <AppText muted>
-            {plan.completeness.incompleteDevices.map((d) => d.name).join(", ")} — the walk has gaps for {plan.completeness.incomplete === 1 ? "it" : "them"}; the plan takes {plan.completeness.incomplete === 1 ? "it" : "them"} in once captured.
+            {plan.completeness.leftOutDevices.map((d) => d.name).join(", ")} — the walk has gaps for {plan.completeness.leftOut === 1 ? "it" : "them"}; the plan takes {plan.completeness.leftOut === 1 ? "it" : "them"} in once captured.
           </AppText>
         </View>
       ) : null}

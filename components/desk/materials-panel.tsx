@@ -9,7 +9,7 @@ import { materialsCsvUrl, useSetPrices } from "@/hooks/queries/materials";
 import type { Plan } from "@/hooks/queries/plan";
 import { MATERIAL_GROUP_NAMES, MATERIAL_GROUPS } from "@/survey/materials";
 import { ApiError } from "@/sync/http";
-import { money } from "./plan-words";
+import { money } from "@/components/ui/format";
 import { parseTypedNumber } from "@/survey/typed-numbers";
 
 function download(url: string) {

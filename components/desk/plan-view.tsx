@@ -13,7 +13,7 @@ import { BudgetChart } from "./budget-chart";
 import { ClosetPanel } from "./closet-panel";
 import { DeviceList } from "./device-list";
 import { MaterialsPanel } from "./materials-panel";
-import { money, when } from "./plan-words";
+import { money, when } from "@/components/ui/format";
 
 type Part = "devices" | "closet" | "materials";
 const PARTS: { id: Part; label: string }[] = [
@@ -73,7 +73,11 @@ function Summary({ plan: p, wide }: { plan: Plan; wide: boolean }) {
   return (
     <View style={[styles.summary, !wide && { flexDirection: "column" }]}>
       <View style={styles.stats}>
-        <Stat label="devices complete" value={`${p.completeness.complete} of ${p.completeness.total}`} tone={p.completeness.incomplete ? "warn" : undefined} />
+        <Stat
+          label={p.completeness.leftOut ? `devices complete · ${p.completeness.leftOut} not in the plan yet` : "devices complete"}
+          value={`${p.completeness.complete} of ${p.completeness.total}`}
+          tone={p.completeness.complete < p.completeness.total ? "warn" : undefined}
+        />
         <Stat label="on PoE" value={String(s.byRecommendation.poe + s.byRecommendation.poe_splitter)} />
         <Stat label="outlets" value={`${s.byRecommendation.existing_outlet} + ${s.byRecommendation.new_outlet} new`} />
         <Stat label="designer decisions" value={String(decided)} />

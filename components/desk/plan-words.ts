@@ -28,13 +28,3 @@ export const KIND_WORDS: Record<string, string> = {
 
 /** Warnings about how long a cable run is: shown on the device row itself. */
 export const RUN_LENGTH_CODES = new Set(["link_over_90m", "channel_over_100m", "cable_cannot_carry", "passive_voltage_drop", "decision_poe_fails"]);
-
-export function money(x: number): string {
-  return x.toLocaleString("en", { minimumFractionDigits: 2, maximumFractionDigits: 2 });
-}
-
-export function when(iso: string | null): string {
-  if (!iso) return "never";
-  const d = new Date(iso);
-  return d.toLocaleString("en", { day: "numeric", month: "short", hour: "2-digit", minute: "2-digit" });
-}

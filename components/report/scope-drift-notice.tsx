@@ -1,6 +1,6 @@
 // Tells the designer when the plan no longer matches the last scope the homeowner was sent or signed.
 import { Banner } from "@/components/ui/banner";
-import { money, when } from "@/components/desk/plan-words";
+import { money, when } from "@/components/ui/format";
 import type { Plan } from "@/hooks/queries/plan";
 import { scopeDriftWords } from "@/survey/report";
 

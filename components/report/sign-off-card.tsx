@@ -1,6 +1,6 @@
 import { useState } from "react";
 import { Linking, Pressable, StyleSheet, View } from "react-native";
-import { when } from "@/components/desk/plan-words";
+import { when } from "@/components/ui/format";
 import { Banner } from "@/components/ui/banner";
 import { Button } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";

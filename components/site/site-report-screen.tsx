@@ -2,7 +2,7 @@ import { useLocalSearchParams } from "expo-router";
 import { ActivityIndicator, View } from "react-native";
 import { ScopeDriftNotice } from "@/components/report/scope-drift-notice";
 import { ScopeView } from "@/components/report/scope-view";
-import { when } from "@/components/desk/plan-words";
+import { when } from "@/components/ui/format";
 import { Banner } from "@/components/ui/banner";
 import { Button } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";

@@ -1,6 +1,6 @@
 import { Linking, View } from "react-native";
 import { Card } from "@/components/ui/card";
-import { when } from "@/components/desk/plan-words";
+import { when } from "@/components/ui/format";
 import { AppText } from "@/components/ui/text";
 import { Icon } from "@/components/ui/icons";
 import { colors, space } from "@/constants/theme";

@@ -1,6 +1,6 @@
 import { useState } from "react";
 import { StyleSheet, View } from "react-native";
-import { when } from "@/components/desk/plan-words";
+import { when } from "@/components/ui/format";
 import * as v from "valibot";
 import { fieldErrors } from "@/survey/validation";
 import { Banner } from "@/components/ui/banner";

@@ -30,6 +30,7 @@ import type { LocalPhoto } from "@/sync/local-store";
 import type { Walk } from "@/survey/walk/walk";
 import { AdviceCard } from "./advice-card";
 import { ConfirmDelete } from "./confirm-delete";
+import { DesignerDecisionCard } from "./designer-decision-card";
 import { PhotoStrip } from "./photo-strip";
 import { SyncPill } from "./sync-pill";
 
@@ -97,7 +98,12 @@ function DeviceEditor({ siteId, deviceId, site, walk, items, photos, back }: { s
     return known ? known.id : form.barrelOuter || form.barrelInner ? "other" : undefined;
   })();
 
-  const advice = <AdviceCard advice={f.advice.evaluation} gaps={f.advice.gaps} refused={f.advice.refused} waitsFor={f.advice.waitsFor} draft={f.dirty.length > 0} />;
+  const advice = (
+    <View style={{ gap: space.lg }}>
+      <DesignerDecisionCard siteId={siteId} deviceId={deviceId} />
+      <AdviceCard advice={f.advice.evaluation} gaps={f.advice.gaps} refused={f.advice.refused} waitsFor={f.advice.waitsFor} draft={f.dirty.length > 0} />
+    </View>
+  );
 
   const saveBar = (
     <View style={{ gap: space.sm }}>

@@ -13,7 +13,7 @@ import { AppText } from "@/components/ui/text";
 import { colors, minTouch, radius, space } from "@/constants/theme";
 import { useBreakpoint } from "@/hooks/use-breakpoint";
 import { useWalk, useWalkActions, type ActionResult } from "@/hooks/use-walk";
-import { gapsLabel } from "@/survey/walk/gaps";
+import { devicesProgressLabel, gapsLabel } from "@/survey/walk/gaps";
 import type { WalkFloor, WalkRoom } from "@/survey/walk/walk";
 import type { RoomType } from "@/survey/walk/words";
 import { AddFloorPanel } from "./add-floor-panel";
@@ -162,7 +162,7 @@ export function WalkPanel({ siteId, after }: { siteId: string; after?: ReactNode
         </AppText>
         <AppText variant="subheading">{`${progress.rooms === 1 ? "1 room" : `${progress.rooms} rooms`} · ${devicesWord(progress.devices)} · ${gapsLabel(progress.gapCount)}`}</AppText>
         <ProgressBar value={done} label="Devices complete" />
-        <AppText muted variant="caption">{`${progress.devicesComplete} of ${devicesWord(progress.devices)} complete`}</AppText>
+        <AppText muted variant="caption">{devicesProgressLabel(progress)}</AppText>
       </Card>
       <Card role="region" aria-label="Checklist">
         <AppText variant="subheading">Before you leave</AppText>

@@ -10,7 +10,8 @@ export interface DeskSite {
   status: SiteStatus;
   clientName: string | null;
   surveyors: { id: string; name: string }[];
-  devices: { total: number; complete: number; incomplete: number };
+  /** Counted as the walk counts them: complete, in the plan with gaps, left out of the plan. */
+  devices: { total: number; complete: number; withGaps: number; leftOut: number };
   lastSyncAt: string | null;
   updatedAt: string;
 }

@@ -59,3 +59,34 @@ export function planWriteHandlers<V>(qc: QueryClient, siteId: string, optimistic
     onSettled: () => qc.invalidateQueries({ queryKey: key }),
   };
 }
+
+/** What the walk shows of the desk's plan for one device: the designer's decision, if there is one. */
+export interface DeviceDecisionNote {
+  /** How the plan powers the device (the decision's label when it applies). */
+  label: string;
+  /** What the rules advised on their own. */
+  ruleLabel: string;
+  decision: NonNullable<PlanDevice["decision"]>;
+  /** Why the decision no longer applies (it does not fit what was captured since), or null. */
+  stale: string | null;
+}
+
+export function deviceDecisionNote(plan: Plan, deviceId: string): DeviceDecisionNote | null {
+  const d = plan.devices.find((x) => x.deviceId === deviceId);
+  if (!d || !d.decision) return null;
+  return { label: d.label, ruleLabel: d.rule.label, decision: d.decision, stale: d.decisionStale };
+}
+
+/**
+ * The designer's decision on one device, for the surveyor's walk. It reads the plan the phone last
+ * fetched (kept for use with no signal), refreshed when the screen opens, not every few seconds.
+ */
+export function useDeviceDecision(siteId: string, deviceId: string) {
+  return useQuery({
+    queryKey: planKeys.detail(siteId),
+    queryFn: () => fetchPlan(siteId),
+    staleTime: 60_000,
+    retry: false,
+    select: (plan: Plan) => deviceDecisionNote(plan, deviceId),
+  });
+}

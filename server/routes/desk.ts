@@ -1,7 +1,7 @@
 import { asc, eq, inArray } from "drizzle-orm";
 import { Router } from "express";
 import { items, siteAssignments, sites, users } from "../../db/schema";
-import { assembleSite } from "../../survey/capture";
+import { walkProgress } from "../../survey/walk/gaps";
 import { actorOf, requireTeam } from "../auth/actor";
 import type { AppContext } from "../context";
 
@@ -28,11 +28,8 @@ export function deskRouter(ctx: AppContext, router: Router = Router()) {
 
     const out = rows.map((s) => {
       const siteItems = bySite.get(s.id) ?? [];
-      const { site, incompleteDeviceIds } = assembleSite(
-        { id: s.id, name: s.name, address: s.address, closetRoomId: s.closetRoomId, settings: (s.settings ?? {}) as Record<string, unknown> },
-        siteItems.map((i) => ({ ...i, siteId: s.id })),
-      );
-      const complete = site.devices.length;
+      // Counted exactly as the surveyor's walk counts them (walkProgress).
+      const progress = walkProgress({ closetRoomId: s.closetRoomId }, siteItems);
       const last = siteItems.reduce<Date | null>((m, i) => (m === null || i.updatedAt > m ? i.updatedAt : m), null);
       const surveyors = assigned.filter((a) => a.siteId === s.id).map((a) => ({ id: a.userId, name: nameOf.get(a.userId) ?? a.userId }));
       return {
@@ -42,7 +39,7 @@ export function deskRouter(ctx: AppContext, router: Router = Router()) {
         status: s.status,
         clientName: s.clientUserId ? (nameOf.get(s.clientUserId) ?? null) : null,
         surveyors,
-        devices: { total: complete + incompleteDeviceIds.length, complete, incomplete: incompleteDeviceIds.length },
+        devices: { total: progress.devices, complete: progress.devicesComplete, withGaps: progress.devicesWithGaps, leftOut: progress.devicesLeftOut },
         lastSyncAt: last ? last.toISOString() : null,
         updatedAt: s.updatedAt.toISOString(),
       };

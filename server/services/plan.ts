@@ -17,6 +17,7 @@ import { evaluateSite, type SiteEvaluation } from "../../survey/rules/evaluate-s
 import type { DeviceEvaluation, PlanWarning } from "../../survey/rules/result-types";
 import { buildReportContent, scopeDrift, type ReportContent, type ReportInput, type ReportMaterialLine } from "../../survey/report";
 import type { OutageDevice } from "../../survey/rules/battery";
+import { walkProgress } from "../../survey/walk/gaps";
 import { HttpError } from "../errors";
 import type { SiteWithAccess } from "./site-access";
 
@@ -286,7 +287,9 @@ export function buildPlanView(data: PlanData) {
   const validSource = new Map(site.powerSources.map((s) => [s.id, s]));
   const validBattery = new Map(site.batteries.map((b) => [b.id, b]));
   const nameOf = (i: ItemRow) => (typeof i.data.name === "string" ? i.data.name : i.id);
-  const incomplete = planned.incompleteDeviceIds.map((id) => ({ id, name: nameOf(live.find((i) => i.id === id)!) }));
+  // Devices counted exactly as the surveyor's walk counts them (walkProgress): the same numbers on both.
+  const progress = walkProgress({ closetRoomId: data.site.closetRoomId }, data.items);
+  const leftOut = progress.leftOutDeviceIds.map((id) => ({ id, name: nameOf(live.find((i) => i.id === id)!) }));
   const lastChange = live.reduce<Date | null>((m, i) => (m === null || i.updatedAt > m ? i.updatedAt : m), null);
   const published = data.published;
   // The scope the plan would publish now, against the last one published (and maybe signed).
@@ -320,7 +323,13 @@ export function buildPlanView(data: PlanData) {
     /** The newest item version: changes when a surveyor's walk or the desk changes anything. */
     changeMark: Math.max(data.site.version, ...data.items.map((i) => i.version), 0),
     lastSyncAt: lastChange ? lastChange.toISOString() : null,
-    completeness: { total: site.devices.length + incomplete.length, complete: site.devices.length, incomplete: incomplete.length, incompleteDevices: incomplete },
+    completeness: {
+      total: progress.devices,
+      complete: progress.devicesComplete,
+      withGaps: progress.devicesWithGaps,
+      leftOut: progress.devicesLeftOut,
+      leftOutDevices: leftOut,
+    },
     floors: floors.map((f) => ({
       id: f.id,
       name: f.name,

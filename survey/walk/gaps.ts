@@ -1,6 +1,7 @@
 // A walk's gaps: what is still missing before the surveyor leaves the house, in plain words.
 // Pure: reads item data as the store keeps it (schema fields, possibly incomplete).
 import * as v from 'valibot';
+import { assembleSite } from '../capture';
 import { deviceEntries, type DeviceKind } from '../model/device';
 import { FloorSchema, RoomSchema } from '../model/site';
 import { fieldErrors } from '../validation';
@@ -180,8 +181,16 @@ export interface WalkProgress {
   readonly floors: number;
   readonly rooms: number;
   readonly devices: number;
-  /** Devices with no gaps at all. */
+  /**
+   * Every device counts in exactly one of these three, the same way on the phone and at the desk:
+   * complete (no gaps at all, and in the plan), in the plan with gaps still to fill (a run length,
+   * a typical figure to read), or left out of the plan until the walk captures what the rules need.
+   */
   readonly devicesComplete: number;
+  readonly devicesWithGaps: number;
+  readonly devicesLeftOut: number;
+  /** The ids of the devices left out of the plan, in capture order. */
+  readonly leftOutDeviceIds: readonly string[];
   /** Every single missing thing counted once (a device missing two fields counts two). */
   readonly gapCount: number;
   /** The site's checklist, one line per kind of gap. */
@@ -226,21 +235,34 @@ export function walkProgress(meta: { closetRoomId: string | null }, items: reado
   const own = siteOwnGaps(meta, floors, rooms);
   const roomLines = rooms.flatMap((r) => roomOwnGaps(r.data, floorIds));
   const deviceData = devices.map((d) => d.data);
+  // Left out of the plan: exactly the devices the plan leaves out when it assembles the site.
+  const leftOutDeviceIds = assembleSite({ id: '', name: '', closetRoomId: meta.closetRoomId }, items).incompleteDeviceIds;
+  const leftOut = new Set(leftOutDeviceIds);
   let deviceGapCount = 0;
   let devicesComplete = 0;
-  for (const d of deviceData) {
-    const n = deviceGapList(d, roomIds).length;
+  devices.forEach((d, k) => {
+    const n = deviceGapList(deviceData[k], roomIds).length;
     deviceGapCount += n;
-    if (n === 0) devicesComplete++;
-  }
+    if (n === 0 && !leftOut.has(d.id)) devicesComplete++;
+  });
   return {
     floors: floors.length,
     rooms: rooms.length,
     devices: devices.length,
     devicesComplete,
+    devicesWithGaps: devices.length - devicesComplete - leftOut.size,
+    devicesLeftOut: leftOut.size,
+    leftOutDeviceIds,
     gapCount: own.length + roomLines.length + deviceGapCount,
     lines: [...own, ...roomLines, ...groupDeviceGaps(deviceData, roomIds)],
   };
+}
+
+/** "14 of 16 devices complete · 1 not in the plan yet": the walk's and the desk's one line on devices. */
+export function devicesProgressLabel(p: Pick<WalkProgress, 'devices' | 'devicesComplete' | 'devicesLeftOut'>): string {
+  if (p.devices === 0) return 'no devices yet';
+  const head = `${p.devicesComplete} of ${p.devices === 1 ? '1 device' : `${p.devices} devices`} complete`;
+  return p.devicesLeftOut === 0 ? head : `${head} · ${p.devicesLeftOut} not in the plan yet`;
 }
 
 /** "no gaps", "1 gap", "3 gaps". */

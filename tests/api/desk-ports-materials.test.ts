@@ -9,6 +9,7 @@ import { DEMO_SITE_ID, seedDemoOnce } from "../../db/seed";
 import { decisionHistory, items, sitePlans } from "../../db/schema";
 import { createApp } from "../../server/app";
 import type { PlanView } from "../../server/services/plan";
+import { walkProgress } from "../../survey/walk/gaps";
 import { signInWithPassword, type Agent } from "../support/auth-client";
 import { createTestDb, type TestDb } from "../support/test-db";
 import { testContext } from "../support/test-server";
@@ -162,20 +163,26 @@ describe("the desk's table of sites", () => {
       status: "surveying",
       clientName: "June Okonkwo-Lindqvist",
       surveyors: [{ id: "user_priya", name: "Priya Halloway" }],
-      devices: { total: 16, complete: 16, incomplete: 0 },
+      // The walk's own count of the same items: two devices carry only a typical power figure.
+      devices: { total: 16, complete: 14, withGaps: 2, leftOut: 0 },
     });
     expect(new Date(demo.lastSyncAt).getTime()).toBeGreaterThan(Date.now() - 60_000);
     const empty = res.body.sites.find((s: { name: string }) => s.name === "An empty house");
-    expect(empty).toMatchObject({ devices: { total: 0, complete: 0, incomplete: 0 }, lastSyncAt: null, surveyors: [] });
+    expect(empty).toMatchObject({ devices: { total: 0, complete: 0, withGaps: 0, leftOut: 0 }, lastSyncAt: null, surveyors: [] });
     await priya.get("/api/desk/sites").expect(403);
   });
 
-  it("counts a device the walk has not finished as incomplete", async () => {
+  it("counts a device the walk has not finished as left out of the plan, as the walk on the phone does", async () => {
     await testDb.db.insert(items).values({ id: "half-done", teamId: "team_lanternfield", siteId: DEMO_SITE_ID, kind: "device", data: { name: "Half-captured camera", kind: "camera", roomId: "rm-hall" }, version: 99 });
     const res = await tomas.get("/api/desk/sites").expect(200);
-    expect(res.body.sites.find((s: { id: string }) => s.id === DEMO_SITE_ID).devices).toEqual({ total: 17, complete: 16, incomplete: 1 });
+    const counts = { total: 17, complete: 14, withGaps: 2, leftOut: 1 };
+    expect(res.body.sites.find((s: { id: string }) => s.id === DEMO_SITE_ID).devices).toEqual(counts);
     const p = await plan();
-    expect(p.completeness).toMatchObject({ complete: 16, incomplete: 1, incompleteDevices: [{ id: "half-done", name: "Half-captured camera" }] });
+    expect(p.completeness).toEqual({ ...counts, leftOutDevices: [{ id: "half-done", name: "Half-captured camera" }] });
+    // The phone counts the same items the same way: what a surveyor pulls gives these numbers.
+    const rows = await testDb.db.select().from(items).where(eq(items.siteId, DEMO_SITE_ID));
+    const walk = walkProgress({ closetRoomId: "rm-closet" }, rows);
+    expect({ total: walk.devices, complete: walk.devicesComplete, withGaps: walk.devicesWithGaps, leftOut: walk.devicesLeftOut }).toEqual(counts);
     const decide = await tomas.put(`${base}/devices/half-done/decision`).send({ method: "poe", reason: "x" }).expect(409);
     expect(decide.body.error.code).toBe("device_incomplete");
   });

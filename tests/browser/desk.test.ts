@@ -30,7 +30,7 @@ describe("the designer's desk", () => {
     const table = page.getByRole("table", { name: "Sites" });
     await table.waitFor();
     await table.getByText("Priya Halloway").waitFor();
-    await table.getByText("16 of 16 complete").waitFor();
+    await table.getByText("14 of 16 devices complete").waitFor();
     await page.getByRole("columnheader", { name: "Sort by Site" }).click();
     expect(await page.getByRole("columnheader", { name: "Sort by Site" }).getAttribute("aria-sort")).toBe("ascending");
     await page.getByRole("textbox", { name: "Filter sites" }).fill("no such house");
@@ -133,6 +133,32 @@ describe("the designer's desk", () => {
     expect(rows.some((r) => r[0] === "PoE splitters" && r[2].includes("Garage inside camera"))).toBe(true);
     // The one refused request is the negative budget typed on purpose above.
     expect(watch.problems).toEqual(["console: Failed to load resource: the server responded with a status of 400 (Bad Request)"]);
+    await context.close();
+  });
+
+  it("shows the surveyor, on the walk, what the designer decided for a device", async () => {
+    // The previous test decided the garage camera at the desk; the surveyor opens it on the phone.
+    const context = await suite.browser.newContext({ viewport: PHONE, deviceScaleFactor: 1 });
+    const page = await context.newPage();
+    const watch = watchPage(page);
+    await signInThroughUi(page, suite.server, "priya@lanternfield.test");
+    await page.getByRole("heading", { name: "Walks" }).waitFor();
+    await page.getByRole("link", { name: /Okonkwo-Lindqvist house/ }).click();
+    await page.getByRole("region", { name: "Checklist" }).waitFor();
+    // The walk and the desk count devices one way (walkProgress): the desk's table said 14 of 16.
+    await page.getByRole("region", { name: "Walk progress" }).getByText("14 of 16 devices complete").waitFor();
+    await page.getByRole("link", { name: /^Garage: / }).click();
+    await page.getByRole("link", { name: /^Garage inside camera: / }).click();
+    await page.getByRole("heading", { name: "Garage inside camera" }).waitFor();
+    const card = page.getByRole("region", { name: "Designer's decision" });
+    await card.getByText("PoE + splitter (12 V · 1 A · 5.5×2.1 mm, centre-positive)").waitFor();
+    await card.getByText("The rules advised: existing outlet").waitFor();
+    await card.getByText(/The garage outlet is on the light switch/).waitFor();
+    await card.getByText(/^Tomas Ferreira-Lund, /).waitFor();
+    // The phone's own advice is still there, below the decision.
+    await page.getByRole("region", { name: "Advice" }).getByText("Existing outlet", { exact: true }).waitFor();
+    await screenshot(page, "walk-designer-decision-phone");
+    expect(watch.problems).toEqual([]);
     await context.close();
   });
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { itemsOfSite } from '../../survey/capture';
 import { demoSiteInput } from '../../survey/demo-site';
-import { deviceGapList, deviceGaps, gapsLabel, roomGaps, siteGaps, walkProgress, type GapItem } from '../../survey/walk/gaps';
+import { deviceGapList, deviceGaps, devicesProgressLabel, gapsLabel, roomGaps, siteGaps, walkProgress, type GapItem } from '../../survey/walk/gaps';
 import { newDeviceFields } from '../../survey/walk/words';
 
 const complete = {
@@ -110,8 +110,30 @@ describe('siteGaps and walkProgress', () => {
   it('the demo house has two typical figures left to read', () => {
     const items = itemsOfSite(demoSiteInput).map((i) => ({ ...i, deleted: false }));
     const progress = walkProgress({ closetRoomId: demoSiteInput.closetRoomId }, items);
-    expect(progress).toMatchObject({ floors: 3, rooms: 10, devices: 16, devicesComplete: 14, gapCount: 2 });
+    expect(progress).toMatchObject({ floors: 3, rooms: 10, devices: 16, devicesComplete: 14, devicesWithGaps: 2, devicesLeftOut: 0, gapCount: 2 });
     expect(progress.lines).toEqual(['2 devices have only a typical power figure']);
+    expect(devicesProgressLabel(progress)).toBe('14 of 16 devices complete');
+  });
+
+  it('counts every device once: complete, in the plan with gaps, or left out of the plan', () => {
+    const base = [floor('f0'), room('r1', 'Closet'), room('r2', 'Porch')];
+    const items = [
+      ...base,
+      device('done', { ...complete, roomId: 'r2' }),
+      // In the plan (the rules take a device with no run yet) but the walk still owes its run length.
+      device('no-run', { ...complete, roomId: 'r2', run: undefined }),
+      // Left out: the rules cannot take a device with no power figure.
+      device('no-power', { ...complete, roomId: 'r2', power: undefined }),
+      // Left out: its room is on a floor that was deleted, so the plan has no room for it.
+      room('r3', 'Loft', 'gone'),
+      device('stray', { ...complete, roomId: 'r3' }),
+    ];
+    const p = walkProgress({ closetRoomId: 'r1' }, items);
+    expect(p).toMatchObject({ devices: 4, devicesComplete: 1, devicesWithGaps: 1, devicesLeftOut: 2, leftOutDeviceIds: ['no-power', 'stray'] });
+    expect(p.devicesComplete + p.devicesWithGaps + p.devicesLeftOut).toBe(p.devices);
+    expect(devicesProgressLabel(p)).toBe('1 of 4 devices complete · 2 not in the plan yet');
+    expect(devicesProgressLabel({ devices: 0, devicesComplete: 0, devicesLeftOut: 0 })).toBe('no devices yet');
+    expect(devicesProgressLabel({ devices: 1, devicesComplete: 1, devicesLeftOut: 0 })).toBe('1 of 1 device complete');
   });
 
   it('the checklist changes as the surveyor fills a gap', () => {

@@ -15,12 +15,17 @@ import { requestSignInLink, signInErrorMessage, signInWithPassword } from "@/syn
 import { AuthFrame } from "./auth-frame";
 
 type Mode = "team" | "homeowner";
+
+/** Auth.js's errors for e-mailed links: a link expired or already used, or an address not invited. */
+const LINK_ERRORS = new Set(["Verification", "AccessDenied"]);
 type Fields = Record<string, string[] | undefined>;
 
 export function SignInScreen() {
   const params = useLocalSearchParams<{ email?: string; error?: string }>();
   const qc = useQueryClient();
-  const [mode, setMode] = useState<Mode>(params.email ? "homeowner" : "team");
+  // A homeowner arrives here from an e-mailed link (with their address, or with the error of a used or
+  // refused link): open on the form that sends them a new link.
+  const [mode, setMode] = useState<Mode>(params.email || LINK_ERRORS.has(params.error ?? "") ? "homeowner" : "team");
   const [email, setEmail] = useState(params.email ?? "");
   const [password, setPassword] = useState("");
   const [fields, setFields] = useState<Fields>({});

@@ -6,6 +6,7 @@ import { Badge } from "@/components/ui/badge";
 import { Banner } from "@/components/ui/banner";
 import { Button } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
+import { ConfirmBox } from "@/components/ui/confirm-box";
 import { AppText } from "@/components/ui/text";
 import { colors, fonts, radius, space } from "@/constants/theme";
 import { useRemoveClosetItem } from "@/hooks/queries/closet";
@@ -26,6 +27,18 @@ export function ClosetPanel({ siteId, plan, wide, editable }: { siteId: string; 
   const removeSource = useRemoveClosetItem(siteId, "sources");
   const removeBattery = useRemoveClosetItem(siteId, "batteries");
   const [notice, setNotice] = useState<string | null>(null);
+  // The closet item whose Remove was pressed: it asks once more before anything goes.
+  const [removing, setRemoving] = useState<string | null>(null);
+  const remove = (id: string, mutation: typeof removeSource) =>
+    new Promise<void>((resolve) =>
+      mutation.mutate(id, {
+        onError: (e) => setNotice(e.message),
+        onSettled: () => {
+          setRemoving(null);
+          resolve();
+        },
+      }),
+    );
   const switchBy = new Map(plan.switches.map((s) => [s.sourceId, s]));
   const batteryOf = new Map<string, string>();
   for (const b of plan.closet.batteries) for (const f of (b.data.feeds as string[] | undefined) ?? []) batteryOf.set(f, String(b.data.name));
@@ -97,10 +110,19 @@ export function ClosetPanel({ siteId, plan, wide, editable }: { siteId: string; 
               {editable ? (
                 <>
                   <Button label="Edit" tone="quiet" aria-label={`Edit ${String(data.name)}`} onPress={() => setEditing(isEditing ? null : { what: "source", id: s.id })} />
-                  <Button label="Remove" tone="quiet" aria-label={`Remove ${String(data.name)}`} onPress={() => removeSource.mutate(s.id, { onError: (e) => setNotice(e.message) })} />
+                  <Button label="Remove" tone="quiet" aria-label={`Remove ${String(data.name)}`} onPress={() => setRemoving(removing === s.id ? null : s.id)} />
                 </>
               ) : null}
             </View>
+            {editable && removing === s.id ? (
+              <ConfirmBox
+                question={`Remove ${String(data.name)} from the closet?`}
+                detail={removalConsequence(data.kind, sw, outletDevices(s.id).length)}
+                confirmLabel="Yes, remove it"
+                onConfirm={() => remove(s.id, removeSource)}
+                onCancel={() => setRemoving(null)}
+              />
+            ) : null}
             {isEditing ? <SourceForm siteId={siteId} item={s} onDone={done} /> : null}
             {sw ? (
               <View style={[styles.split, !wide && { flexDirection: "column", alignItems: "stretch" }]}>
@@ -154,10 +176,19 @@ export function ClosetPanel({ siteId, plan, wide, editable }: { siteId: string; 
               {editable ? (
                 <>
                   <Button label="Edit" tone="quiet" aria-label={`Edit ${String(b.data.name)}`} onPress={() => setEditing(isEditing ? null : { what: "battery", id: b.id })} />
-                  <Button label="Remove" tone="quiet" aria-label={`Remove ${String(b.data.name)}`} onPress={() => removeBattery.mutate(b.id, { onError: (e) => setNotice(e.message) })} />
+                  <Button label="Remove" tone="quiet" aria-label={`Remove ${String(b.data.name)}`} onPress={() => setRemoving(removing === b.id ? null : b.id)} />
                 </>
               ) : null}
             </View>
+            {editable && removing === b.id ? (
+              <ConfirmBox
+                question={`Remove ${String(b.data.name)} from the closet?`}
+                detail="What it feeds is no longer counted as on battery: devices that must stay up in a power cut may then go down."
+                confirmLabel="Yes, remove it"
+                onConfirm={() => remove(b.id, removeBattery)}
+                onCancel={() => setRemoving(null)}
+              />
+            ) : null}
             {isEditing ? <BatteryForm siteId={siteId} plan={plan} item={b} onDone={done} /> : null}
             {ev?.warnings.map((w, i) => <AppText key={i} variant="caption" style={{ color: colors.warn, fontFamily: fonts.semibold }}>{w.message}</AppText>)}
           </Card>
@@ -229,3 +260,16 @@ const styles = StyleSheet.create({
   small: { minHeight: 32, paddingHorizontal: space.sm },
   unassigned: { flexDirection: "row", gap: space.md, alignItems: "center" },
 });
+
+/** What removing a power source does to the plan, in a sentence. */
+function removalConsequence(kind: unknown, sw: PlanSwitch | undefined, onOutlet: number): string {
+  if (kind === "outlet") {
+    if (onOutlet === 0) return "Nothing is pinned to it.";
+    return onOutlet === 1 ? "The device pinned to it goes back to the rules' choice of outlet." : `The ${onOutlet} devices pinned to it go back to the rules' choice of outlet.`;
+  }
+  const used = sw?.portsUsed ?? 0;
+  if (used === 0) return "No device is on its ports.";
+  return used === 1
+    ? "The device on its ports loses its port: the plan moves it to another source with room, or lists it without a port."
+    : `The ${used} devices on its ports lose their ports: the plan moves them to other sources with room, or lists them without a port.`;
+}

@@ -6,6 +6,7 @@ import { fieldErrors } from "@/survey/validation";
 import { Banner } from "@/components/ui/banner";
 import { Button } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
+import { ConfirmBox } from "@/components/ui/confirm-box";
 import { ChoiceChips } from "@/components/ui/choice-chips";
 import { Screen } from "@/components/ui/screen";
 import { AppText } from "@/components/ui/text";
@@ -35,6 +36,8 @@ export function TeamScreen() {
   const [role, setRole] = useState<TeamRole>("surveyor");
   const [fields, setFields] = useState<Record<string, string[] | undefined>>({});
   const [sent, setSent] = useState<string>();
+  // The member whose Remove was pressed: it asks once more before they lose access.
+  const [removing, setRemoving] = useState<string | null>(null);
 
   if (!me.permissions["team:manage"]) {
     return (
@@ -84,8 +87,17 @@ export function TeamScreen() {
                 <AppText variant="subheading">{m.name ?? m.email}</AppText>
                 <AppText muted variant="caption">{m.email}</AppText>
               </View>
-              {m.id !== me.user.id ? <Button tone="quiet" label={`Remove ${m.name ?? m.email}`} onPress={() => remove.mutate(m.id)} /> : <AppText muted>You</AppText>}
+              {m.id !== me.user.id ? <Button tone="quiet" label={`Remove ${m.name ?? m.email}`} onPress={() => setRemoving(removing === m.id ? null : m.id)} /> : <AppText muted>You</AppText>}
             </View>
+            {removing === m.id ? (
+              <ConfirmBox
+                question={`Remove ${m.name ?? m.email} from the team?`}
+                detail="They lose access to the team's sites at once. What they have synced stays on the sites; changes still only on their phone no longer reach the team, so ask them to sync first."
+                confirmLabel="Yes, remove them"
+                onConfirm={() => remove.mutateAsync(m.id).then(() => setRemoving(null), () => setRemoving(null))}
+                onCancel={() => setRemoving(null)}
+              />
+            ) : null}
             <ChoiceChips label={`Role of ${m.name ?? m.email}`} value={m.role as TeamRole} choices={ROLE_CHOICES} onChange={(r) => changeRole.mutate({ id: m.id, role: r })} />
           </Card>
         ))}

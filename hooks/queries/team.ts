@@ -30,11 +30,18 @@ export const teamKeys = {
   outbox: () => [...teamKeys.root, "outbox"] as const,
 };
 
+/** How often an open team screen looks again, so someone who just joined shows up without a reload. */
+export const MEMBERS_REFRESH_MS = 15_000;
+
 export function useTeamMembers(enabled = true) {
   return useQuery({
     queryKey: teamKeys.members(),
     queryFn: () => apiFetch<{ members: Member[]; invites: PendingInvite[] }>("/api/team/members"),
     enabled,
+    // Who is on the team changes from elsewhere (an invitation accepted): never trust a kept copy.
+    staleTime: 0,
+    refetchInterval: MEMBERS_REFRESH_MS,
+    refetchIntervalInBackground: false,
   });
 }
 

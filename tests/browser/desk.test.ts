@@ -131,6 +131,22 @@ describe("the designer's desk", () => {
     expect(plate[5]).toBe("3.25");
     expect(rows.find((r) => r[8] === "poe-switch:type2:4-port:60w")![2]).toBe("Garage switch");
     expect(rows.some((r) => r[0] === "PoE splitters" && r[2].includes("Garage inside camera"))).toBe(true);
+
+    // Removing a closet item asks once more and says what follows; "Keep it" leaves it alone.
+    await page.getByRole("tab", { name: "Closet" }).click();
+    await page.getByRole("button", { name: "Remove Garage switch" }).click();
+    const ask = page.getByRole("alertdialog", { name: "Remove Garage switch from the closet?" });
+    await ask.getByText(/The device on its ports loses its port: the plan moves it to another source with room/).waitFor();
+    await ask.scrollIntoViewIfNeeded();
+    await screenshot(page, "desk-closet-remove-desktop");
+    await ask.getByRole("button", { name: "Keep it" }).click();
+    await ask.waitFor({ state: "detached" });
+    await page.getByRole("table", { name: "Ports of Garage switch" }).getByRole("row", { name: "Port 2: Bedroom 2 desk switch" }).waitFor();
+    await page.getByRole("button", { name: "Remove Garage switch" }).click();
+    await ask.getByRole("button", { name: "Yes, remove it" }).click();
+    await page.getByRole("table", { name: "Ports of Garage switch" }).waitFor({ state: "detached" });
+    // Its pin is gone with it: the rules place the desk switch again.
+    await page.getByRole("table", { name: "Ports of Closet PoE switch" }).getByRole("row", { name: /: Bedroom 2 desk switch$/ }).waitFor();
     // The one refused request is the negative budget typed on purpose above.
     expect(watch.problems).toEqual(["console: Failed to load resource: the server responded with a status of 400 (Bad Request)"]);
     await context.close();

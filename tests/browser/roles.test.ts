@@ -90,6 +90,15 @@ describe("each demo role at phone size sees its own navigation", () => {
     await lp.getByText(/already used/).waitFor();
     await screenshot(lp, "invite-used-phone");
     await later.close();
+    // Removing a member asks once more, saying what they lose, before it goes through.
+    // The new member shows up on the open team screen by itself (it looks again every 15 s), no reload.
+    await page.getByRole("button", { name: "Remove Wren Adeyemi" }).waitFor({ timeout: 25_000 });
+    await page.getByRole("button", { name: "Remove Wren Adeyemi" }).click();
+    const ask = page.getByRole("alertdialog", { name: "Remove Wren Adeyemi from the team?" });
+    await ask.getByText(/changes still only on their phone no longer reach the team/).waitFor();
+    await ask.getByRole("button", { name: "Yes, remove them" }).click();
+    await ask.waitFor({ state: "detached" });
+    await page.getByRole("button", { name: "Remove Wren Adeyemi" }).waitFor({ state: "detached" });
     await context.close();
   });
 });

@@ -43,6 +43,16 @@ describe("the homeowner signs off on a phone", () => {
     expect(watch.problems).toEqual([]);
     await context.close();
 
+    // The link works once: opened again, it says so and offers a new link, not the team's password form.
+    const again = await suite.browser.newContext({ viewport: PHONE });
+    const usedPage = await again.newPage();
+    await usedPage.goto(link, { waitUntil: "networkidle" });
+    await usedPage.getByText(/That sign-in link has expired or was already used/).waitFor();
+    await usedPage.getByRole("button", { name: "Send me a link" }).waitFor();
+    expect(await usedPage.getByRole("textbox", { name: "Password" }).count()).toBe(0);
+    await screenshot(usedPage, "sign-in-link-used-phone");
+    await again.close();
+
     const desk = await suite.browser.newContext({ viewport: DESKTOP });
     const dp = await desk.newPage();
     await signInThroughUi(dp, suite.server, "tomas@lanternfield.test");

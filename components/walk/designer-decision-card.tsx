@@ -5,7 +5,6 @@ import { when } from "@/components/ui/format";
 import { AppText } from "@/components/ui/text";
 import { colors, radius, space } from "@/constants/theme";
 import { useDeviceDecision } from "@/hooks/queries/plan";
-import { POWER_METHOD_WORDS } from "@/survey/decisions";
 import { capitalise } from "./gap-list";
 
 /**
@@ -24,8 +23,8 @@ export function DesignerDecisionCard({ siteId, deviceId }: { siteId: string; dev
         Designer's decision
       </AppText>
       {note.stale ? (
-        <Banner tone="warn" title={`${POWER_METHOD_WORDS[decision.method]}: no longer fits`}>
-          {`${note.stale} The desk plans this device by the rules' advice until the designer looks at it again.`}
+        <Banner tone="warn" title="No longer fits what was captured">
+          {note.stale}
         </Banner>
       ) : (
         <View style={styles.label}>

@@ -67,14 +67,15 @@ export interface DeviceDecisionNote {
   /** What the rules advised on their own. */
   ruleLabel: string;
   decision: NonNullable<PlanDevice["decision"]>;
-  /** Why the decision no longer applies (it does not fit what was captured since), or null. */
+  /** Why the decision no longer applies (it does not fit what was captured since), in the plan's words, or null. */
   stale: string | null;
 }
 
 export function deviceDecisionNote(plan: Plan, deviceId: string): DeviceDecisionNote | null {
   const d = plan.devices.find((x) => x.deviceId === deviceId);
   if (!d || !d.decision) return null;
-  return { label: d.label, ruleLabel: d.rule.label, decision: d.decision, stale: d.decisionStale };
+  const stale = d.decisionStale === null ? null : (d.warnings.find((w) => w.code === "decision_stale")?.message ?? d.decisionStale);
+  return { label: d.label, ruleLabel: d.rule.label, decision: d.decision, stale };
 }
 
 /**

@@ -10,6 +10,7 @@ import { DEMO_SITE_ID, seedDemoOnce } from "../../db/seed";
 import { decisionHistory, items, teams } from "../../db/schema";
 import { createApp } from "../../server/app";
 import type { PlanView } from "../../server/services/plan";
+import { deviceDecisionNote } from "../../hooks/queries/plan";
 import type { PullResponse } from "../../sync/protocol";
 import { signInWithPassword, type Agent } from "../support/auth-client";
 import { createTestDb, type TestDb } from "../support/test-db";
@@ -152,6 +153,22 @@ describe("a decision changes the evaluation and is kept", () => {
     expect(device(after, "cam-garage").recommendation).toBe("existing_outlet");
     expect(after.history["cam-garage"].map((h) => h.action)).toEqual(["cleared", "decided", "decided"]);
     await tomas.delete(`${base}/devices/cam-garage/decision`).send({ reason: "again" }).expect(404);
+  });
+
+  it("the surveyor's walk reads the decision from the plan, and is told when a later capture no longer fits it", async () => {
+    await decide(tomas, "cam-drive", { method: "poe_splitter", reason: "Keep the driveway camera up in a power cut." }).expect(200);
+    const note = deviceDecisionNote(await plan(priya), "cam-drive")!;
+    // The rules already advise a splitter for it outdoors; the decision pins that choice down.
+    expect(note).toMatchObject({ ruleLabel: note.label, stale: null, decision: { method: "poe_splitter", reason: "Keep the driveway camera up in a power cut.", decidedBy: "Tomas Ferreira-Lund" } });
+    expect(note.label).toMatch(/^PoE \+ splitter \(12 V/);
+    expect(deviceDecisionNote(await plan(priya), "cam-porch")).toBeNull();
+    // A later walk finds it takes mains through its own plug: a splitter cannot power that.
+    const captured = await item("cam-drive");
+    await testDb.db.update(items).set({ data: { ...captured.data, input: { type: "ac_plug" }, power: { by: "watts", watts: 6 } }, version: captured.version + 1 }).where(eq(items.id, "cam-drive"));
+    const stale = deviceDecisionNote(await plan(priya), "cam-drive")!;
+    expect(stale.stale).toMatch(/^The designer decision \(PoE \+ splitter\) no longer fits what was captured: .+ The rules' advice applies until it is changed\.$/);
+    await testDb.db.update(items).set({ data: captured.data, version: captured.version + 2 }).where(eq(items.id, "cam-drive"));
+    await tomas.delete(`${base}/devices/cam-drive/decision`).send({ reason: "Back to the rules." }).expect(200);
   });
 
   it("a class override changes what the switch reserves", async () => {

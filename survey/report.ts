@@ -256,3 +256,33 @@ export function scopeDriftWords(drift: ScopeDrift, money: (x: number) => string)
   const text = parts.join("; ");
   return `${text.charAt(0).toUpperCase()}${text.slice(1)}.`;
 }
+
+/** What the designer is asked to look at before a scope goes to the homeowner. */
+export interface PublishReadinessInput {
+  /** The plan's problems (errors): devices that cannot be powered as captured, ports short, runs too long… */
+  readonly problems: number;
+  readonly unpricedLines: number;
+  readonly materialLines: number;
+  readonly devicesWithGaps: number;
+  readonly devicesLeftOut: number;
+  /** The last published version compared with the plan now, or null before the first. */
+  readonly sincePublished: { readonly version: number; readonly changed: boolean } | null;
+}
+
+const count = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
+
+/**
+ * The lines the publish confirmation shows: each thing still open that the homeowner would read as
+ * it is, in the order a designer would fix them. Empty when nothing is open.
+ */
+export function publishReadiness(r: PublishReadinessInput): string[] {
+  const lines: string[] = [];
+  if (r.problems > 0) lines.push(`${count(r.problems, "problem is", "problems are")} still open in the plan: the homeowner reads ${r.problems === 1 ? "it" : "them"} in the scope as they stand.`);
+  if (r.devicesLeftOut > 0) lines.push(`${count(r.devicesLeftOut, "device is", "devices are")} left out of the plan: the walk has gaps for ${r.devicesLeftOut === 1 ? "it" : "them"}, so the scope does not cover ${r.devicesLeftOut === 1 ? "it" : "them"}.`);
+  if (r.devicesWithGaps > 0) lines.push(`${count(r.devicesWithGaps, "device still has", "devices still have")} gaps from the walk (a typical power figure, a run not measured).`);
+  if (r.unpricedLines > 0) lines.push(`${r.unpricedLines} of ${count(r.materialLines, "material line is", "material lines are")} not priced yet: the total covers the priced lines only.`);
+  if (r.sincePublished && !r.sincePublished.changed) {
+    lines.push(`Nothing changed since version ${r.sincePublished.version}: the homeowner gets the same scope again, as version ${r.sincePublished.version + 1}.`);
+  }
+  return lines;
+}

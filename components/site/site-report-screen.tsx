@@ -1,4 +1,5 @@
 import { useLocalSearchParams } from "expo-router";
+import { useState } from "react";
 import { ActivityIndicator, View } from "react-native";
 import { ScopeDriftNotice } from "@/components/report/scope-drift-notice";
 import { ScopeView } from "@/components/report/scope-view";
@@ -6,6 +7,7 @@ import { when } from "@/components/ui/format";
 import { Banner } from "@/components/ui/banner";
 import { Button } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
+import { ConfirmBox } from "@/components/ui/confirm-box";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Icon } from "@/components/ui/icons";
 import { AppText } from "@/components/ui/text";
@@ -13,6 +15,7 @@ import { colors, space } from "@/constants/theme";
 import { useMe } from "@/hooks/queries/me";
 import { usePlan } from "@/hooks/queries/plan";
 import { usePublishReport, useReport, useSiteReports } from "@/hooks/queries/reports";
+import { publishReadiness } from "@/survey/report";
 import { SiteSectionScreen } from "./site-section-screen";
 
 export function SiteReportScreen() {
@@ -45,7 +48,7 @@ function ReportSection({ siteId, hasClient }: { siteId: string; hasClient: boole
           {latest ? <PlanSincePublished siteId={siteId} /> : null}
           {publish.error ? <Banner tone="danger">{publish.error.message}</Banner> : null}
           {publish.data ? <Banner tone="good">{`Version ${publish.data.report.version} published and e-mailed.`}</Banner> : null}
-          <Button label={latest ? `Publish version ${latest.version + 1}` : "Publish version 1"} busy={publish.isPending} disabled={!hasClient} onPress={() => publish.mutate(undefined)} />
+          <PublishButton siteId={siteId} nextVersion={(latest?.version ?? 0) + 1} disabled={!hasClient} publish={() => publish.mutateAsync(undefined)} busy={publish.isPending} />
           {reports.data.length ? (
             <View style={{ gap: 2 }}>
               {reports.data.map((r) => (
@@ -76,4 +79,42 @@ function ReportSection({ siteId, hasClient }: { siteId: string; hasClient: boole
 function PlanSincePublished({ siteId }: { siteId: string }) {
   const plan = usePlan(siteId);
   return plan.data ? <ScopeDriftNotice scope={plan.data.scope} /> : null;
+}
+
+/**
+ * Publishing asks once more, listing what is still open in the plan (problems, devices left out or
+ * with gaps, unpriced lines, an unchanged scope), because the homeowner reads and may sign it as it is.
+ */
+function PublishButton({ siteId, nextVersion, disabled, busy, publish }: { siteId: string; nextVersion: number; disabled: boolean; busy: boolean; publish: () => Promise<unknown> }) {
+  const [asking, setAsking] = useState(false);
+  const plan = usePlan(siteId).data;
+  if (!asking) return <Button label={`Publish version ${nextVersion}`} busy={busy} disabled={disabled} onPress={() => setAsking(true)} style={{ alignSelf: "flex-start" }} />;
+  const open = plan
+    ? publishReadiness({
+        problems: plan.summary.warningCounts.error,
+        unpricedLines: plan.materials.unpricedCount,
+        materialLines: plan.materials.lines.length,
+        devicesWithGaps: plan.completeness.withGaps,
+        devicesLeftOut: plan.completeness.leftOut,
+        sincePublished: plan.scope ? { version: plan.scope.sinceVersion, changed: plan.scope.changed } : null,
+      })
+    : [];
+  return (
+    <ConfirmBox
+      question={`Publish version ${nextVersion} and e-mail the homeowner?`}
+      detail={!plan ? "Reading the plan…" : open.length ? "Still open:" : "Nothing is open in the plan."}
+      confirmLabel="Yes, publish and e-mail"
+      keepLabel="Not yet"
+      onConfirm={() => publish().then(() => setAsking(false), () => setAsking(false))}
+      onCancel={() => setAsking(false)}
+    >
+      {open.length ? (
+        <View role="list" aria-label="Still open before publishing" style={{ gap: 2 }}>
+          {open.map((line) => (
+            <AppText key={line} role="listitem">{`• ${line}`}</AppText>
+          ))}
+        </View>
+      ) : null}
+    </ConfirmBox>
+  );
 }

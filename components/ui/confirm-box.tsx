@@ -1,4 +1,4 @@
-import { useState } from "react";
+import { useRef, useState, type ReactNode } from "react";
 import { StyleSheet, View } from "react-native";
 import { Button } from "@/components/ui/button";
 import { AppText } from "@/components/ui/text";
@@ -7,34 +7,42 @@ import { colors, radius, space } from "@/constants/theme";
 /**
  * Asks once more, in place, before something is removed: the question, what follows from it, and
  * two answers. The box stays until the removal has gone through or the person keeps the thing.
+ * A second press while the first is still going through does nothing (a double click acts once).
  */
-export function ConfirmBox({ question, detail, confirmLabel, onConfirm, onCancel }: {
+export function ConfirmBox({ question, detail, confirmLabel, keepLabel = "Keep it", onConfirm, onCancel, children }: {
   question: string;
   detail?: string;
   confirmLabel: string;
+  keepLabel?: string;
   onConfirm: () => Promise<unknown> | void;
   onCancel: () => void;
+  children?: ReactNode;
 }) {
   const [busy, setBusy] = useState(false);
+  const running = useRef(false);
   return (
     <View role="alertdialog" aria-label={question} style={styles.box}>
       <AppText style={{ color: colors.danger, fontWeight: "700" }}>{question}</AppText>
       {detail ? <AppText>{detail}</AppText> : null}
+      {children}
       <View style={styles.row}>
         <Button
           tone="danger"
           label={confirmLabel}
           busy={busy}
           onPress={async () => {
+            if (running.current) return;
+            running.current = true;
             setBusy(true);
             try {
               await onConfirm();
             } finally {
+              running.current = false;
               setBusy(false);
             }
           }}
         />
-        <Button tone="quiet" label="Keep it" onPress={onCancel} />
+        <Button tone="quiet" label={keepLabel} onPress={onCancel} />
       </View>
     </View>
   );

@@ -4,7 +4,9 @@ import fs from "node:fs";
 import { parse } from "csv-parse/sync";
 import type { Page } from "playwright-core";
 import { describe, expect, it } from "vitest";
+import { DEMO_PASSWORD } from "../../db/demo-accounts";
 import { DEMO_SITE_ID } from "../../db/seed";
+import { signInWithPassword } from "../support/auth-client";
 import { DESKTOP, PHONE, screenshot, watchPage } from "../support/browser";
 import { signInThroughUi } from "../support/browser-auth";
 import { serverAndBrowser } from "../support/browser-suite";
@@ -207,6 +209,38 @@ describe("the designer's desk", () => {
     const item = (await page.getByRole("table", { name: "Materials" }).getByText(/^PoE switch, /).first().boundingBox())!;
     expect(item.width).toBeGreaterThan(PHONE.width / 2); // the item reads across the width, not a letter per line
     await screenshot(page, "desk-materials-phone");
+    expect(watch.problems).toEqual([]);
+    await context.close();
+  });
+
+  it("publishing asks once more, listing what is still open, and a double click publishes once", async () => {
+    const context = await suite.browser.newContext({ viewport: DESKTOP, deviceScaleFactor: 1 });
+    const page = await context.newPage();
+    const watch = watchPage(page);
+    await openPlanFromDesk(page);
+    await page.getByRole("tablist", { name: "Site sections" }).getByRole("tab", { name: "Report" }).click();
+    await page.getByRole("button", { name: "Publish version 1" }).click();
+    const ask = page.getByRole("alertdialog", { name: "Publish version 1 and e-mail the homeowner?" });
+    const open = ask.getByRole("list", { name: "Still open before publishing" });
+    // The demo plan still has its copper-clad run and the typical figures, and most lines have no price.
+    await open.getByText(/problems? (is|are) still open in the plan/).waitFor();
+    await open.getByText("2 devices still have gaps from the walk (a typical power figure, a run not measured).").waitFor();
+    await open.getByText(/material lines are not priced yet: the total covers the priced lines only\.$/).waitFor();
+    await screenshot(page, "publish-confirm-desktop");
+    // "Not yet" publishes nothing.
+    await ask.getByRole("button", { name: "Not yet" }).click();
+    await ask.waitFor({ state: "detached" });
+    const designer = await signInWithPassword(suite.server.url, "tomas@lanternfield.test", DEMO_PASSWORD);
+    const versions = async () => (await designer.get(`/api/sites/${DEMO_SITE_ID}/reports`).expect(200)).body.reports.length;
+    expect(await versions()).toBe(0);
+    await page.getByRole("button", { name: "Publish version 1" }).click();
+    await ask.getByRole("button", { name: "Yes, publish and e-mail" }).dblclick();
+    await page.getByText("Version 1 published and e-mailed.").waitFor();
+    expect(await versions()).toBe(1);
+    // Publishing again with nothing changed says so before it sends the same scope.
+    await page.getByRole("button", { name: "Publish version 2" }).click();
+    await page.getByRole("alertdialog", { name: "Publish version 2 and e-mail the homeowner?" })
+      .getByText("Nothing changed since version 1: the homeowner gets the same scope again, as version 2.").waitFor();
     expect(watch.problems).toEqual([]);
     await context.close();
   });

@@ -85,6 +85,8 @@ export async function decideDevice(db: Db, actor: SignedInActor, site: SiteWithA
     const poeMethod = POE_METHODS.has(input.method);
     const current = pinsOf(planned, deviceId);
     let pins = current;
+    // A device the automatic assignment left on the port taken by hand: the rules place it again.
+    let bumped: string | null = null;
     if (input.sourceId !== undefined) {
       const src = planned.powerSources.find((s) => s.id === input.sourceId);
       if (!src) throw new HttpError(400, "invalid_input", "That power source is not in the closet.", { sourceId: [`There is no power source "${input.sourceId}" in this site's closet.`] });
@@ -92,7 +94,7 @@ export async function decideDevice(db: Db, actor: SignedInActor, site: SiteWithA
       if (!poeMethod && src.kind !== "outlet") {
         throw new HttpError(400, "invalid_input", "Powered from an outlet, it takes no PoE port.", { sourceId: [`"${src.name}" is a PoE ${src.kind === "injector" ? "injector" : "switch"}: choose one of the closet's outlets, or none.`] });
       }
-      if (input.port !== undefined) checkPort(planned, src, deviceId, input.port);
+      if (input.port !== undefined) bumped = checkPort(planned, src, deviceId, input.port, new Set(data.autoPlaced));
       pins = { sourceId: src.id, port: input.port ?? null };
     } else if (current.sourceId) {
       const src = planned.powerSources.find((s) => s.id === current.sourceId);
@@ -103,7 +105,19 @@ export async function decideDevice(db: Db, actor: SignedInActor, site: SiteWithA
     const decisions = decisionMap(data.decisions);
     const before = evaluatePlan(planned, decisions).evaluation;
     decisions.set(deviceId, input);
-    const after = evaluatePlan(withPins(planned, deviceId, pins), decisions).evaluation;
+    // A device moved by hand takes its port and nothing else moves: every other device the rules
+    // placed keeps the port it has now (installers label patch ports), except one on the very port
+    // taken, which the rules place again. Those holds are the automatic assignment's pins, so
+    // "Assign ports" may still move them later.
+    const autoPlaced = new Set(data.autoPlaced);
+    const held = input.sourceId !== undefined && poeMethod && pins.sourceId
+      ? before.assignment.placements.filter((p) =>
+          (!p.pinned || autoPlaced.has(p.deviceId)) && p.deviceId !== deviceId && p.deviceId !== bumped && !(p.sourceId === pins.sourceId && p.port === pins.port))
+      : [];
+    let moved = withPins(planned, deviceId, pins);
+    if (bumped) moved = withPins(moved, bumped, { sourceId: null, port: null });
+    for (const p of held) moved = withPins(moved, p.deviceId, { sourceId: p.sourceId, port: p.port });
+    const after = evaluatePlan(moved, decisions).evaluation;
     const unassigned = after.assignment.unassigned.find((u) => u.deviceId === deviceId);
     if (unassigned && input.sourceId !== undefined && poeMethod) {
       throw new HttpError(409, unassigned.code, `It cannot go there: ${unassigned.reason}`, { sourceId: [unassigned.reason] });
@@ -139,19 +153,31 @@ export async function decideDevice(db: Db, actor: SignedInActor, site: SiteWithA
     };
     await tx.insert(deviceDecisions).values(row).onConflictDoUpdate({ target: [deviceDecisions.siteId, deviceDecisions.deviceId], set: { ...row } });
     await tx.insert(decisionHistory).values(history(actor, site.id, deviceId, "decided", decisionRecord(row as DecisionRow), decisionRecord(previous), input.reason, forced));
-    if (!samePins(pins, current)) await applyItemChanges(tx, actor, [pinChange(site.id, deviceId, pins)]);
-    // A pin the designer chose (or cleared) is not the automatic assignment's any more.
-    if (input.sourceId !== undefined || !samePins(pins, current)) await setAutoPlaced(tx, actor, site.id, (ids) => ids.filter((id) => id !== deviceId));
+    const changes: ItemChange[] = [];
+    if (!samePins(pins, current)) changes.push(pinChange(site.id, deviceId, pins));
+    if (bumped) changes.push(pinChange(site.id, bumped, { sourceId: null, port: null }));
+    for (const p of held) if (!samePins(pinsOf(planned, p.deviceId), p)) changes.push(pinChange(site.id, p.deviceId, { sourceId: p.sourceId, port: p.port }));
+    if (changes.length) await applyItemChanges(tx, actor, changes);
+    // A pin the designer chose (or cleared) is not the automatic assignment's any more; the held ones are.
+    if (input.sourceId !== undefined || !samePins(pins, current) || held.length) {
+      await setAutoPlaced(tx, actor, site.id, (ids) => [...new Set([...ids.filter((id) => id !== deviceId && id !== bumped), ...held.map((p) => p.deviceId)])]);
+    }
   });
 }
 
-function checkPort(site: Site, src: PowerSource, deviceId: string, port: number) {
+/**
+ * Refuses a port that does not exist or that a device was put on by hand. A device the automatic
+ * assignment holds there gives way: its id is returned, and the rules place it again.
+ */
+function checkPort(site: Site, src: PowerSource, deviceId: string, port: number, autoPlaced: ReadonlySet<string>): string | null {
   const n = portCount(src);
   if (port > n) throw new HttpError(400, "invalid_input", `Port ${port} does not exist on "${src.name}".`, { port: [`"${src.name}" has ${n} PoE port${n === 1 ? "" : "s"}.`] });
   const other = site.devices.find((d) => d.id !== deviceId && d.sourceId === src.id && d.port === port);
+  if (other && autoPlaced.has(other.id)) return other.id;
   if (other) {
     throw new HttpError(409, "port_taken", `Port ${port} of "${src.name}" is used by "${other.name}". Choose a free port, or move "${other.name}" first.`, { port: [`Port ${port} is used by "${other.name}".`] });
   }
+  return null;
 }
 
 export async function clearDecision(db: Db, actor: SignedInActor, site: SiteWithAccess, deviceId: string, reason: string) {

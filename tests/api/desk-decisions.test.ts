@@ -207,6 +207,29 @@ describe("placing a device by hand", () => {
     expect(pulled.items.find((i) => i.id === "sw-bed2")!.data).toMatchObject({ sourceId: bench, port: 2 });
   });
 
+  it("a device moved by hand takes its port and every other device keeps its own, except the one it bumps", async () => {
+    const at = (p: PlanView) => new Map(p.devices.filter((d) => d.placement).map((d) => [d.deviceId, `${d.placement!.sourceId}:${d.placement!.port}`]));
+    const before = await plan();
+    const was = at(before);
+    const bumped = [...was].find(([, where]) => where === "sw-closet:2")?.[0];
+    const portOf = (where: string) => Number(where.split(":")[1]);
+    const mover = [...was]
+      .filter(([id, where]) => where.startsWith("sw-closet:") && id !== bumped && device(before, id).recommendation === "poe")
+      .sort((a, b) => portOf(b[1]) - portOf(a[1]))[0][0];
+    const res = await decide(tomas, mover, { method: "poe", sourceId: "sw-closet", port: 2, reason: "Shortest patch lead to the panel." }).expect(200);
+    const now = at(res.body.plan);
+    expect(now.get(mover)).toBe("sw-closet:2");
+    for (const [id, where] of was) if (id !== mover && id !== bumped) expect([id, now.get(id)]).toEqual([id, where]);
+    if (bumped) expect(now.get(bumped)).not.toBe("sw-closet:2");
+    // The held ports are the automatic assignment's: "Assign ports" may still move them.
+    const held = [...was.keys()].filter((id) => {
+      const placed = device(before, id).placement!;
+      return id !== mover && id !== bumped && (!placed.pinned || placed.auto);
+    });
+    expect(held.length).toBeGreaterThan(0);
+    for (const id of held) expect(device(res.body.plan, id).placement).toMatchObject({ pinned: true, auto: true });
+  });
+
   it("refuses a taken port and a port that does not exist", async () => {
     const taken = await decide(tomas, "ap-living", { method: "poe", sourceId: bench, port: 2, reason: "try" }).expect(409);
     expect(taken.body.error.code).toBe("port_taken");
@@ -224,11 +247,12 @@ describe("placing a device by hand", () => {
 
   it("refuses a placement over the budget with the reason, unless forced with a reason", async () => {
     const before = await teamVersion();
+    const pinBefore = (await item("cam-yard")).data.sourceId;
     const res = await decide(tomas, "cam-yard", { method: "poe", sourceId: bench, port: 1, reason: "Move the yard camera too." }).expect(409);
     expect(res.body.error.code).toBe("over_budget");
     expect(res.body.error.message).toMatch(/"Bench switch" would draw 38.\d+ W, over its 30 W budget/);
     expect(await teamVersion()).toBe(before);
-    expect((await item("cam-yard")).data.sourceId).toBeUndefined();
+    expect((await item("cam-yard")).data.sourceId).toBe(pinBefore);
 
     const forced = await decide(tomas, "cam-yard", { method: "poe", sourceId: bench, port: 1, reason: "Temporary: a bigger switch is on order.", force: true }).expect(200);
     const p: PlanView = forced.body.plan;

@@ -111,7 +111,11 @@ function DeviceRow({ siteId, plan, device: d, wide, editable, open, onToggle }: 
           ))}
         </View>
         <View style={[styles.colWarn, !wide && styles.full]}>
-          {otherWarnings.length === 0 ? <AppText variant="caption" muted>No warnings.</AppText> : null}
+          {otherWarnings.length === 0 ? (
+            <AppText variant="caption" muted>
+              {runWarnings.length || d.unassigned ? "No other warnings." : "No warnings."}
+            </AppText>
+          ) : null}
           {otherWarnings.map((w, i) => (
             <View key={i} style={[styles.warning, { backgroundColor: SEVERITY_COLOR[w.severity].bg }]}>
               <AppText variant="caption" style={{ color: SEVERITY_COLOR[w.severity].fg, fontFamily: fonts.bold }}>{SEVERITY_COLOR[w.severity].word}</AppText>

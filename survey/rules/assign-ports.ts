@@ -398,6 +398,8 @@ interface TypeSummary {
   readonly eligiblePorts: number;
   readonly withPorts: number;
   readonly best: SourceState | null;
+  /** Free ports left on sources of a lower PoE type than needed. */
+  readonly lowerTypeFree: number;
 }
 
 /** For one required type: how many sources could serve it, and the roomiest one with a free port. */
@@ -406,15 +408,19 @@ function summarise(states: readonly SourceState[], poeType: number): TypeSummary
   let eligiblePorts = 0;
   let withPorts = 0;
   let best: SourceState | null = null;
+  let lowerTypeFree = 0;
   for (const s of states) {
-    if (s.src.poeType < poeType) continue;
+    if (s.src.poeType < poeType) {
+      lowerTypeFree += s.free;
+      continue;
+    }
     eligible++;
     eligiblePorts += s.ports;
     if (s.free === 0) continue;
     withPorts++;
     if (best === null || s.limitW - s.usedW > best.limitW - best.usedW) best = s;
   }
-  return { eligible, eligiblePorts, withPorts, best };
+  return { eligible, eligiblePorts, withPorts, best, lowerTypeFree };
 }
 
 /** Why a device fits nowhere; the reason's words are written when first read. */
@@ -428,8 +434,14 @@ function unassignedReason(
   }
   if (sum.best === null) {
     const eligiblePorts = sum.eligiblePorts;
-    return deferredField<UnassignedDevice, 'reason'>({ deviceId, code: 'ports_full', reason: '' }, 'reason', () =>
-      `All ${eligiblePorts} suitable PoE ports (${typeName(poeType)} or better) are taken. Add a switch or an injector.`);
+    const lowerTypeFree = sum.lowerTypeFree;
+    return deferredField<UnassignedDevice, 'reason'>({ deviceId, code: 'ports_full', reason: '' }, 'reason', () => {
+      const taken = eligiblePorts === 1
+        ? `The only suitable PoE port (${typeName(poeType)} or better) is taken`
+        : `All ${eligiblePorts} suitable PoE ports (${typeName(poeType)} or better) are taken`;
+      const lower = lowerTypeFree === 0 ? '' : `; the ${lowerTypeFree === 1 ? 'free port left is' : `${lowerTypeFree} free ports left are`} of a lower PoE type than it needs`;
+      return `${taken}${lower}. Add a switch or an injector.`;
+    });
   }
   const best = sum.best;
   const left = Math.max(0, best.limitW - best.usedW);

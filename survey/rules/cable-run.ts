@@ -348,14 +348,20 @@ export function addCableWarnings(bits: number, run: CableRun, o: CableRunOptions
  */
 export function deliveredReason(c: CableRunEvaluation, u: UnitSystem): string | null {
   const poe = c.poe;
-  if (poe === null || !(poe.atClassPower.meetsClassPower && poe.atClassPower.meetsMinVoltage && poe.atExpectedLoad.meetsMinVoltage)) {
+  // A run too long for a network cable delivers nothing worth promising, whatever the arithmetic says.
+  if (!c.withinChannel || poe === null || !(poe.atClassPower.meetsClassPower && poe.atClassPower.meetsMinVoltage && poe.atExpectedLoad.meetsMinVoltage)) {
     return null;
   }
   const channelM = c.lengthM + c.cordAllowanceM;
   const loopOhm = pairsetLoopOhm(conductorOhmPerM(c.gauge, c.temperatureC, c.cca), channelM);
   const cls = POE_CLASSES[poe.poeClass];
   const atClass = lossAtPsePower(cls.psePowerW, poe.pseVoltageMinV, loopOhm, cls.pairs);
-  return `Over ${formatLength(channelM, u)} of ${CABLE_CATEGORY_NAMES[c.category]} (loop resistance ${formatOhms(loopOhm)}), the cable loses at most ${formatWatts(atClass.lossW)}; the device still gets ${formatWatts(atClass.pdPowerW)} at ${formatVolts(atClass.pdVoltageV)} (it needs at least ${formatVolts(poe.pdVoltageMinV)}).`;
+  const category = CABLE_CATEGORY_NAMES[c.category];
+  // The length said is the one typed, with the cords the rules add to it named as such.
+  const over = c.cordAllowanceM > 0
+    ? `its ${formatLength(c.lengthM, u)} run and ${formatLength(c.cordAllowanceM, u)} of patch cords (${formatLength(channelM, u)} of ${category}, loop resistance ${formatOhms(loopOhm)})`
+    : `its ${formatLength(c.lengthM, u)} run of ${category} (loop resistance ${formatOhms(loopOhm)})`;
+  return `Over ${over}, the cable loses at most ${formatWatts(atClass.lossW)}; the device still gets ${formatWatts(atClass.pdPowerW)} at ${formatVolts(atClass.pdVoltageV)} (it needs at least ${formatVolts(poe.pdVoltageMinV)}).`;
 }
 
 /** Gauge used for a run (captured, or the category default). */

@@ -4,12 +4,13 @@ import * as v from 'valibot';
 import { assembleSite } from '../capture';
 import { deviceEntries, type DeviceKind } from '../model/device';
 import { FloorSchema, RoomSchema } from '../model/site';
+import { CHANNEL_LIMITS } from '../standards/cabling';
 import { fieldErrors } from '../validation';
 import { KIND_WORDS } from './words';
 
 type Data = Record<string, unknown>;
 
-export type DeviceGapCode = 'name' | 'kind' | 'room' | 'mount' | 'power' | 'power_typical' | 'input' | 'cable_access' | 'run' | 'invalid';
+export type DeviceGapCode = 'name' | 'kind' | 'room' | 'mount' | 'power' | 'power_typical' | 'input' | 'cable_access' | 'run' | 'run_long' | 'invalid';
 
 export interface DeviceGap {
   readonly code: DeviceGapCode;
@@ -53,6 +54,16 @@ export const DEVICE_FIELD_WORDS: Readonly<Record<string, string>> = {
 const present = (x: unknown) => x !== undefined && x !== null;
 
 /**
+ * A run longer than TIA-568's 90 m permanent link (100 m channel with its cords) is something to
+ * settle at the house: measure it again, find a shorter path, or note a place for a switch nearer.
+ */
+const RUN_LONG: DeviceGap = {
+  code: 'run_long',
+  field: 'run',
+  text: `its run is over the ${CHANNEL_LIMITS.permanentLinkMaxM} m (295 ft) a network cable may run to the closet: measure it again, find a shorter path, or note where a switch nearer could go`,
+};
+
+/**
  * A cable run matters for power unless the device takes mains or low-voltage AC from where it is
  * (a mains plug, or an AC terminal block fed by a transformer): those never get PoE.
  */
@@ -94,6 +105,7 @@ export function deviceGapList(data: Data, roomIds?: ReadonlySet<string>): Device
     }
     const problem = invalid(field, value);
     if (problem) gaps.push(problem);
+    else if (field === 'run' && (value as { lengthM: number }).lengthM > CHANNEL_LIMITS.permanentLinkMaxM) gaps.push(RUN_LONG);
   }
   return gaps;
 }
@@ -121,10 +133,11 @@ const GROUP_WORDS: Readonly<Record<DeviceGapCode, { one: (who: string) => string
   input: { one: (who) => `no power input for ${who}`, many: (n) => `${n} devices don't say how they take power` },
   cable_access: { one: (who) => `no cable access for ${who}`, many: (n) => `${n} devices have no cable access` },
   run: { one: (who) => `no run length for ${who}`, many: (n) => `${n} devices have no run length` },
+  run_long: { one: (who) => `the run of ${who} is over 90 m (295 ft): measure again or find a shorter path`, many: (n) => `${n} devices have runs over 90 m (295 ft): measure again or find shorter paths` },
   invalid: { one: (who) => `a field of ${who} needs fixing`, many: (n) => `${n} devices have a field that needs fixing` },
 };
 
-const CODE_ORDER: readonly DeviceGapCode[] = ['name', 'kind', 'room', 'mount', 'power', 'power_typical', 'input', 'cable_access', 'run', 'invalid'];
+const CODE_ORDER: readonly DeviceGapCode[] = ['name', 'kind', 'room', 'mount', 'power', 'power_typical', 'input', 'cable_access', 'run', 'run_long', 'invalid'];
 
 /** "Porch camera", or "the doorbell" when it has no name yet. */
 function deviceWho(data: Data): string {

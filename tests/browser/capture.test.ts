@@ -163,7 +163,7 @@ describe("capturing a walk on the phone", () => {
     await page.getByRole("link", { name: /^Living room: 1 device/ }).click();
     await page.getByRole("link", { name: /^Living room access point: PoE/ }).click();
     await expect.poll(() => page.getByRole("textbox", { name: "Cable run to the closet" }).inputValue()).toBe("52.49");
-    await page.getByRole("region", { name: "Advice" }).getByText(/Over 68\.9 ft of Cat 6/).waitFor();
+    await page.getByRole("region", { name: "Advice" }).getByText(/Over its 52\.5 ft run and 16\.4 ft of patch cords \(68\.9 ft of Cat 6/).waitFor();
     await screenshot(page, "capture-device-desktop");
     await page.getByRole("link", { name: "Back to Living room" }).click();
     await page.getByRole("link", { name: /^Back to .*Okonkwo-Lindqvist house/ }).click();

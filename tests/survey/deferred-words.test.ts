@@ -83,19 +83,21 @@ describe('the evaluation reads the same with deferred words', () => {
   // sha256 (first 32 hex digits) of JSON.stringify(evaluateSite(site)), recorded with the rules as
   // they were before the words were deferred: every figure, key, reason, warning and caution, in order.
   // After a deliberate change to the rules' figures or wording, record them again (and review why).
+  // Last recorded when the cable reason began naming the run and its patch cords apart, and stopped
+  // promising power over a run longer than a channel may be.
   const RECORDED: Readonly<Record<string, string>> = {
-    'demo metric class': '4cde16411658aaf94e4aad296426e9af',
-    'demo metric expected': 'c8ba32690c64bf461594b02e211847dd',
-    'demo imperial class': '3c3e469f27f4355bf093edeecb5195dc',
-    'demo imperial expected': '268feae226dc24135f58827a56fe4622',
-    'generated-40 metric class': '14b33df538ddbdd9066bde142b2bb086',
-    'generated-40 metric expected': '53998322f10c851b5154cc039bf7ab29',
-    'generated-40 imperial class': 'f47ce0c2a4f1388fc1fca93bacd38f93',
-    'generated-40 imperial expected': '2fe197d1461c310e1c41f1ecf16b6629',
-    'generated-400 metric class': 'b658d402b3e9bedddfb60626d5e6abca',
-    'generated-400 metric expected': 'a31794abc1e83451b0f99116ff0d5afd',
-    'generated-400 imperial class': 'fdb3b7df6238467e96a21526a6d32527',
-    'generated-400 imperial expected': 'd34cab8940a45391120e1501917c0d8e',
+    'demo metric class': '98f6edadc5bf8e0ceb535759bb9beeea',
+    'demo metric expected': 'da43282ac88caf14c871c8432deb7d6a',
+    'demo imperial class': '83fa85b54e999c1c0fc61cc0d25d4ea2',
+    'demo imperial expected': '7fa7d21253c678a594c686706c3f2228',
+    'generated-40 metric class': '524e097b4a7f6544c7cf94b5e13130e8',
+    'generated-40 metric expected': 'a862159279bee997ceb375fdf0598305',
+    'generated-40 imperial class': 'c2a4810bff3fb99b4fb12984c3d06ff7',
+    'generated-40 imperial expected': '1665387d1b532dff217a190230c0dc53',
+    'generated-400 metric class': '57604794bf1c1f891a8feb55aa1c08de',
+    'generated-400 metric expected': 'ec7a0e682ee580c563a01fec2c89a814',
+    'generated-400 imperial class': 'cc56a7d38c7e5f9cc64fee0aee8346f0',
+    'generated-400 imperial expected': '5eb67a2e90678f8d6a1db490fdbf682c',
   };
   const sites: Record<string, Site> = {
     demo: demoSite,

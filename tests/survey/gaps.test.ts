@@ -93,6 +93,20 @@ describe('roomGaps', () => {
   });
 });
 
+describe('a run longer than a network cable may be', () => {
+  // TIA-568: 90 m permanent link, 100 m channel with its cords (../shared/reference/poe-facts.md).
+  it('is a gap to settle before leaving the house, named once on the checklist', () => {
+    expect(deviceGapList({ ...complete, run: { lengthM: 90, category: 'cat6' } })).toEqual([]);
+    expect(deviceGapList({ ...complete, run: { lengthM: 150, category: 'cat6' } })).toEqual([{
+      code: 'run_long', field: 'run',
+      text: 'its run is over the 90 m (295 ft) a network cable may run to the closet: measure it again, find a shorter path, or note where a switch nearer could go',
+    }]);
+    const p = walkProgress({ closetRoomId: 'r1' }, [floor('f0'), room('r1', 'Closet'), room('porch', 'Porch'), device('far', { ...complete, name: 'Attic access point', run: { lengthM: 150, category: 'cat6' } })]);
+    expect(p.lines).toEqual(['the run of Attic access point is over 90 m (295 ft): measure again or find a shorter path']);
+    expect(p).toMatchObject({ devices: 1, devicesComplete: 0, devicesWithGaps: 1, devicesLeftOut: 0 });
+  });
+});
+
 describe('siteGaps and walkProgress', () => {
   it('an empty site asks for floors first, then rooms, then the closet', () => {
     expect(siteGaps({ closetRoomId: null }, [])).toEqual(['no floors yet: add the floors of the house']);

@@ -39,6 +39,17 @@ describe('assignPorts', () => {
     expect(a.placements).toHaveLength(8);
     expect(new Set(a.placements.map((p) => p.port)).size).toBe(8);
     expect(a.unassigned[0]).toMatchObject({ code: 'ports_full' });
+    expect(a.unassigned[0].reason).toBe('All 8 suitable PoE ports (802.3af or better) are taken. Add a switch or an injector.');
+  });
+  it('says when the one suitable port is taken and the free ports left are of too low a type', () => {
+    // Two Class 4 devices need 802.3at; the one at injector is taken, the af switch cannot serve them.
+    const site = siteWith({
+      powerSources: [switchInput({ poeType: 1, budgetW: 120 }), { kind: 'injector', id: 'inj', name: 'Injector', poeType: 2 }],
+      devices: [c4('a'), c4('b')],
+    });
+    const a = assignPorts(site);
+    expect(a.placements.map((p) => p.deviceId)).toEqual(['a']);
+    expect(a.unassigned[0].reason).toBe('The only suitable PoE port (802.3at or better) is taken; the 8 free ports left are of a lower PoE type than it needs. Add a switch or an injector.');
   });
   it('a device needing 802.3bt goes to a bt injector, not the at switch', () => {
     const big = dev({ id: 'big', input: { type: 'poe', class: 6 }, power: { by: 'watts', watts: 45 } });

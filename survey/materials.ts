@@ -323,3 +323,6 @@ export function materialsCsvRows(m: PricedMaterials, site: { name: string }): (s
   rows.push(["Total", `${site.name}: ${m.pricedCount} priced line${m.pricedCount === 1 ? "" : "s"}${m.unpricedCount ? `, ${m.unpricedCount} without a price` : ""}`, "", "", "", "", m.total.toFixed(2), "", ""]);
   return rows;
 }
+
+/** The currency of every price and total: unit prices are typed in it and reports state it. */
+export const MATERIALS_CURRENCY = "USD";

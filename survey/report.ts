@@ -24,6 +24,13 @@ export interface ReportMaterialLine {
   unit: string;
   unitPrice: number;
   total: number;
+  /** False for a line without a unit price yet (its 0 is not a price); absent in versions published before it was kept. */
+  priced?: boolean;
+}
+
+/** A line's amount as the homeowner reads it: "to be priced" rather than a 0 that looks free. */
+export function lineAmount(line: Pick<ReportMaterialLine, "total" | "priced">, currency: string): string {
+  return line.priced === false ? "to be priced" : `${line.total.toFixed(2)} ${currency}`;
 }
 
 export interface ReportContent {

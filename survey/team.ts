@@ -2,13 +2,16 @@
 import * as v from "valibot";
 import { ROLES, TEAM_ROLES } from "./policy";
 
+const AnEmail = v.pipe(v.string(), v.email());
+
 export const EmailSchema = v.pipe(
   v.string("Enter an e-mail address."),
   v.trim(),
   v.toLowerCase(),
   v.nonEmpty("Enter an e-mail address."),
   v.maxLength(254, "That e-mail address is too long."),
-  v.email("That does not look like an e-mail address."),
+  // An empty field gets one message, "Enter an e-mail address.", not that one and this one too.
+  v.check((s) => s === "" || v.is(AnEmail, s), "That does not look like an e-mail address."),
 );
 
 export const PersonNameSchema = v.pipe(

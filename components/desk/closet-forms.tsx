@@ -10,6 +10,7 @@ import { AppText } from "@/components/ui/text";
 import { colors, fonts, radius, space } from "@/constants/theme";
 import { useSaveClosetItem } from "@/hooks/queries/closet";
 import type { Plan } from "@/hooks/queries/plan";
+import { checkItemDraft } from "@/survey/capture";
 import { TypedFields } from "@/survey/typed-numbers";
 import type { FieldErrors } from "@/survey/validation";
 import { ApiError } from "@/sync/http";
@@ -39,8 +40,10 @@ function useClosetSave(siteId: string, kind: "sources" | "batteries", onDone: ()
           onDone();
         },
         onError: (err) => {
-          setErrors(err instanceof ApiError ? err.fields : {});
-          setMessage(err.message);
+          const fields = err instanceof ApiError ? err.fields : {};
+          setErrors(fields);
+          // Each refused field carries its own message beside it; the banner only points at them.
+          setMessage(Object.keys(fields).length ? "Check the marked fields: nothing was saved." : err.message);
         },
       },
     );
@@ -84,7 +87,11 @@ export function SourceForm({ siteId, item, kind: newKind, onDone }: { siteId: st
         efficiency: typed.percent("efficiency", eff, "Efficiency") ?? null,
       });
     }
-    if (!typed.ok) return refuse(typed.errors);
+    // Every field is checked with the same schema the server uses, so all that is wrong is marked at once.
+    const filled = Object.fromEntries(Object.entries(fields).filter(([, x]) => x !== null));
+    const draft = checkItemDraft("source", filled);
+    const refused = { ...(draft.ok ? {} : draft.errors), ...typed.errors };
+    if (Object.keys(refused).length) return refuse(refused);
     // A new item sends only what was filled in; an edit clears what was emptied.
     if (!item) for (const k of Object.keys(fields)) if (fields[k] === null) delete fields[k];
     submit(item?.id, fields);

@@ -7,7 +7,7 @@ import { AppText } from "@/components/ui/text";
 import { colors, fonts, radius, space } from "@/constants/theme";
 import { materialsCsvUrl, useSetPrices } from "@/hooks/queries/materials";
 import type { Plan } from "@/hooks/queries/plan";
-import { MATERIAL_GROUP_NAMES, MATERIAL_GROUPS } from "@/survey/materials";
+import { MATERIAL_GROUP_NAMES, MATERIAL_GROUPS, MATERIALS_CURRENCY } from "@/survey/materials";
 import { ApiError } from "@/sync/http";
 import { money } from "@/components/ui/format";
 import { parseTypedNumber } from "@/survey/typed-numbers";
@@ -75,7 +75,7 @@ export function MaterialsPanel({ siteId, plan, wide, editable }: { siteId: strin
           {wide ? <AppText style={[styles.thText, { flex: 2 }]}>For</AppText> : null}
           <View style={wide ? styles.figures : styles.figuresStacked}>
             <AppText style={[styles.thText, styles.qty]}>Qty</AppText>
-            <AppText style={[styles.thText, wide ? styles.price : styles.priceStacked]}>Unit price</AppText>
+            <AppText style={[styles.thText, wide ? styles.price : styles.priceStacked]}>{`Unit price, ${MATERIALS_CURRENCY}`}</AppText>
             <AppText style={[styles.thText, styles.total]}>Line total</AppText>
           </View>
         </View>
@@ -127,7 +127,7 @@ export function MaterialsPanel({ siteId, plan, wide, editable }: { siteId: strin
         })}
         <View style={[styles.tr, styles.foot]} role="row">
           <AppText style={[styles.thText, styles.footText, { flex: 1 }]}>
-            Total{m.unpricedCount ? ` (${m.unpricedCount} line${m.unpricedCount === 1 ? "" : "s"} without a price)` : ""}
+            {`Total, ${MATERIALS_CURRENCY}`}{m.unpricedCount ? ` (${m.unpricedCount} line${m.unpricedCount === 1 ? "" : "s"} without a price)` : ""}
           </AppText>
           <AppText testID="materials-total" style={[styles.total, { fontFamily: fonts.heavy, fontSize: 18 }]}>{money(m.total)}</AppText>
         </View>

@@ -14,6 +14,7 @@ import { ClosetPanel } from "./closet-panel";
 import { DeviceList } from "./device-list";
 import { MaterialsPanel } from "./materials-panel";
 import { money, when } from "@/components/ui/format";
+import { MATERIALS_CURRENCY } from "@/survey/materials";
 
 type Part = "devices" | "closet" | "materials";
 const PARTS: { id: Part; label: string }[] = [
@@ -83,7 +84,7 @@ function Summary({ plan: p, wide }: { plan: Plan; wide: boolean }) {
         <Stat label="designer decisions" value={String(decided)} />
         <Stat label="problems · checks" value={`${s.warningCounts.error} · ${s.warningCounts.warning}`} tone={s.warningCounts.error ? "danger" : s.warningCounts.warning ? "warn" : undefined} />
         <Stat label="must stay up, stays up" value={`${s.mustStayUp.staysUp} of ${s.mustStayUp.total}`} tone={s.mustStayUp.goesDown ? "warn" : undefined} />
-        <Stat label="materials" value={money(p.materials.total)} />
+        <Stat label={`materials, ${MATERIALS_CURRENCY}${p.materials.unpricedCount ? ` · ${p.materials.unpricedCount} unpriced` : ""}`} value={money(p.materials.total)} />
       </View>
       {wide ? (
         <View style={styles.charts}>

@@ -8,7 +8,7 @@ import { Card } from "@/components/ui/card";
 import { AppText } from "@/components/ui/text";
 import { colors, space } from "@/constants/theme";
 import type { ReportView } from "@/hooks/queries/reports";
-import { unpricedNote } from "@/survey/report";
+import { lineAmount, unpricedNote } from "@/survey/report";
 import { CommentBox } from "./comment-box";
 import { SignOffCard } from "./sign-off-card";
 
@@ -88,7 +88,7 @@ export function ScopeView({ view, isClient }: { view: ReportView; isClient: bool
           {content.materials.lines.map((l) => (
             <View key={l.key} style={styles.line}>
               <AppText style={{ flex: 1 }}>{`${l.quantity} ${l.unit} · ${l.description}`}</AppText>
-              <AppText>{l.total.toFixed(2)}</AppText>
+              <AppText>{lineAmount(l, content.materials.currency)}</AppText>
             </View>
           ))}
           <View style={styles.line}>

@@ -3,7 +3,7 @@
 import { createRequire } from "node:module";
 import path from "node:path";
 import PDFDocument from "pdfkit";
-import { unpricedNote, type ReportContent } from "../../survey/report";
+import { lineAmount, unpricedNote, type ReportContent } from "../../survey/report";
 
 const require = createRequire(import.meta.url);
 const fontDir = path.dirname(require.resolve("@expo-google-fonts/nunito-sans/package.json"));
@@ -110,7 +110,7 @@ export function renderReportPdf(content: ReportContent, hash: string): Promise<B
   }
 
   heading("Materials");
-  for (const line of content.materials.lines) para(`${line.quantity} ${line.unit} · ${line.description} · ${line.total.toFixed(2)} ${content.materials.currency}`);
+  for (const line of content.materials.lines) para(`${line.quantity} ${line.unit} · ${line.description} · ${lineAmount(line, content.materials.currency)}`);
   para(`Total: ${content.materials.total.toFixed(2)} ${content.materials.currency}`, { bold: true });
   const unpriced = unpricedNote(content.materials);
   if (unpriced) para(unpriced);

@@ -18,8 +18,9 @@ import { loadPlanData, lockTeam } from "./plan";
 export type ClosetKind = "source" | "battery";
 
 function fail(errors: FieldErrors, what: string): never {
-  const [field, messages] = Object.entries(errors)[0];
-  throw new HttpError(400, "invalid_input", `The ${what} is not valid. ${field === "_" ? "" : `${field}: `}${messages[0]}`, errors);
+  // The fields are named by their own messages ("PoE ports must be at least 1"), not by their keys.
+  const [, messages] = Object.entries(errors)[0];
+  throw new HttpError(400, "invalid_input", `The ${what} is not valid: ${messages[0]}`, errors);
 }
 
 function bodyObject(body: unknown, what: string): Record<string, unknown> {

@@ -6,7 +6,7 @@ import { decisionHistory, deviceDecisions, items, reportVersions, signoffs, site
 import { assembleSite, type SiteItem } from "../../survey/capture";
 import { applyDecision, applyDecisions, defaultSplitter, POWER_METHODS, type AppliedDecisions, type DecisionCore, type PowerMethod, type SplitterChoice } from "../../survey/decisions";
 import type { CableRun, PowerInput } from "../../survey/model/device";
-import { buildMaterials, priceMaterials, type PricedMaterials } from "../../survey/materials";
+import { buildMaterials, MATERIALS_CURRENCY, priceMaterials, type PricedMaterials } from "../../survey/materials";
 import { parseSite } from "../../survey/model/validate";
 import type { PowerSource } from "../../survey/model/power-source";
 import type { BatteryBackup } from "../../survey/model/battery";
@@ -391,17 +391,18 @@ function reportPlanOf(data: PlanData, site: Site, applied: AppliedDecisions, eva
   }
   const lines: ReportMaterialLine[] = priced.lines.map((l) => ({
     key: l.key,
-    description: l.unitPrice === null ? `${l.item} (price to be confirmed)` : l.item,
+    description: l.item,
     quantity: l.quantity,
     unit: l.unit,
     unitPrice: l.unitPrice ?? 0,
     total: l.lineTotal ?? 0,
+    priced: l.unitPrice !== null,
   }));
   return {
     site: { ...site, address: data.site.address },
     evaluation,
     decisions,
-    materials: { lines, total: priced.total, unpricedCount: priced.lines.filter((l) => l.unitPrice === null).length, currency: "USD" },
+    materials: { lines, total: priced.total, unpricedCount: priced.lines.filter((l) => l.unitPrice === null).length, currency: MATERIALS_CURRENCY },
   };
 }
 

@@ -98,6 +98,10 @@ describe("publishing", () => {
     // No unit prices are set in the demo: the total says it covers the priced lines only.
     const content = (await client.get(`/api/reports/${v1.id}`).expect(200)).body.content;
     expect(content.materials.unpricedCount).toBe(content.materials.lines.length);
+    // An unpriced line reads "to be priced", never a 0 that looks free.
+    expect(content.materials.lines.every((l: { priced?: boolean }) => l.priced === false)).toBe(true);
+    expect(text).toContain(`${content.materials.lines[0].description} · to be priced`);
+    expect(text).not.toContain("· 0.00 USD");
     expect(text).toContain(`${content.materials.lines.length} lines are still to be priced: the total covers the priced lines only.`);
   });
 

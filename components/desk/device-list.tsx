@@ -122,6 +122,14 @@ function DeviceRow({ siteId, plan, device: d, wide, editable, open, onToggle }: 
               <AppText variant="caption">{w.message}</AppText>
             </View>
           ))}
+          {d.cautions.length ? (
+            <View role="group" aria-label={`Safety for ${d.name}`} style={[styles.warning, { backgroundColor: colors.dangerBg }]}>
+              <AppText variant="caption" style={{ color: colors.danger, fontFamily: fonts.bold }}>Safety</AppText>
+              {d.cautions.map((c) => (
+                <AppText key={c.id} variant="caption">{`⚠ ${c.text}`}</AppText>
+              ))}
+            </View>
+          ) : null}
         </View>
       </View>
       {showHistory ? <History entries={history} /> : null}

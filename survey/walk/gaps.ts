@@ -10,7 +10,7 @@ import { KIND_WORDS } from './words';
 
 type Data = Record<string, unknown>;
 
-export type DeviceGapCode = 'name' | 'kind' | 'room' | 'mount' | 'power' | 'power_typical' | 'input' | 'cable_access' | 'run' | 'run_long' | 'invalid';
+export type DeviceGapCode = 'name' | 'kind' | 'room' | 'mount' | 'power' | 'power_typical' | 'input' | 'cable_access' | 'run' | 'run_long' | 'polarity' | 'invalid';
 
 export interface DeviceGap {
   readonly code: DeviceGapCode;
@@ -96,6 +96,10 @@ export function deviceGapList(data: Data, roomIds?: ReadonlySet<string>): Device
     if (r.field === 'power' && (value as { typical?: unknown }).typical === true) {
       gaps.push({ code: 'power_typical', field: 'power', text: 'only a typical power figure: read the real one on its label' });
     }
+    // Only someone at the device can read the polarity symbol; a splitter wired the wrong way round can harm it.
+    if (r.field === 'input' && (value as { type?: unknown; polarity?: unknown }).type === 'dc_barrel' && (value as { polarity?: unknown }).polarity === 'unknown') {
+      gaps.push({ code: 'polarity', field: 'input', text: 'its plug polarity is not read yet: look for the polarity symbol on its label or adapter' });
+    }
   }
   for (const field of OPTIONAL_CHECKED) {
     const value = data[field];
@@ -133,11 +137,12 @@ const GROUP_WORDS: Readonly<Record<DeviceGapCode, { one: (who: string) => string
   input: { one: (who) => `no power input for ${who}`, many: (n) => `${n} devices don't say how they take power` },
   cable_access: { one: (who) => `no cable access for ${who}`, many: (n) => `${n} devices have no cable access` },
   run: { one: (who) => `no run length for ${who}`, many: (n) => `${n} devices have no run length` },
+  polarity: { one: (who) => `the plug polarity of ${who} is not read yet`, many: (n) => `${n} devices have a plug polarity not read yet` },
   run_long: { one: (who) => `the run of ${who} is over 90 m (295 ft): measure again or find a shorter path`, many: (n) => `${n} devices have runs over 90 m (295 ft): measure again or find shorter paths` },
   invalid: { one: (who) => `a field of ${who} needs fixing`, many: (n) => `${n} devices have a field that needs fixing` },
 };
 
-const CODE_ORDER: readonly DeviceGapCode[] = ['name', 'kind', 'room', 'mount', 'power', 'power_typical', 'input', 'cable_access', 'run', 'run_long', 'invalid'];
+const CODE_ORDER: readonly DeviceGapCode[] = ['name', 'kind', 'room', 'mount', 'power', 'power_typical', 'input', 'cable_access', 'run', 'run_long', 'polarity', 'invalid'];
 
 /** "Porch camera", or "the doorbell" when it has no name yet. */
 function deviceWho(data: Data): string {

@@ -103,7 +103,8 @@ export function LocalStoreProvider({ userId, children, fallback }: { userId: str
           store,
           transport: httpTransport,
           upload: uploadPhoto,
-          isOnline: () => onlineManager.isOnline(),
+          // Either says offline: the browser's own flag changes even when no "offline" event arrives.
+          isOnline: () => onlineManager.isOnline() && (typeof navigator === "undefined" || navigator.onLine !== false),
           onSynced: () => void qc.invalidateQueries({ queryKey: localKeys.root }),
         });
         opening.started(runner);

@@ -293,3 +293,10 @@ export function publishReadiness(r: PublishReadinessInput): string[] {
   }
   return lines;
 }
+
+/** A device's reasons as the scope lists them under its designer decision: the decision is said once, above them. */
+export function reasonsBesideDecision(d: Pick<ReportDevice, "reasons" | "decision">): string[] {
+  if (!d.decision) return d.reasons;
+  const said = `Designer decision: ${d.decision.reason}`;
+  return d.reasons.filter((r) => r !== said);
+}

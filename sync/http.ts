@@ -36,6 +36,7 @@ export async function apiFetch<T>(path: string, init: { method?: string; body?: 
       signal: init.signal,
     });
   } catch (err) {
+    // Cancelled by the caller: say so. A request that ran out of time (TimeoutError) is as good as offline.
     if ((err as Error).name === "AbortError") throw err;
     throw new OfflineError();
   }

@@ -8,7 +8,7 @@ import { Card } from "@/components/ui/card";
 import { AppText } from "@/components/ui/text";
 import { colors, space } from "@/constants/theme";
 import type { ReportView } from "@/hooks/queries/reports";
-import { lineAmount, unpricedNote } from "@/survey/report";
+import { lineAmount, reasonsBesideDecision, unpricedNote } from "@/survey/report";
 import { CommentBox } from "./comment-box";
 import { SignOffCard } from "./sign-off-card";
 
@@ -60,7 +60,7 @@ export function ScopeView({ view, isClient }: { view: ReportView; isClient: bool
                 <Badge label={d.label} tone={TONE[d.recommendation as keyof typeof TONE] ?? "neutral"} />
               </View>
               {d.decision ? <Banner tone="info" title="Designer decision">{d.decision.reason}</Banner> : null}
-              {d.reasons.map((r, i) => (
+              {reasonsBesideDecision(d).map((r, i) => (
                 <AppText key={i} muted>{`• ${r}`}</AppText>
               ))}
               {d.warnings.map((w, i) => (

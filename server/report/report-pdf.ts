@@ -3,7 +3,7 @@
 import { createRequire } from "node:module";
 import path from "node:path";
 import PDFDocument from "pdfkit";
-import { lineAmount, unpricedNote, type ReportContent } from "../../survey/report";
+import { lineAmount, reasonsBesideDecision, unpricedNote, type ReportContent } from "../../survey/report";
 
 const require = createRequire(import.meta.url);
 const fontDir = path.dirname(require.resolve("@expo-google-fonts/nunito-sans/package.json"));
@@ -64,7 +64,7 @@ export function renderReportPdf(content: ReportContent, hash: string): Promise<B
       if (doc.y > doc.page.height - 140) doc.addPage();
       doc.font(FONT.bold).fontSize(11).fillColor(INK).text(`${d.name} — ${d.label}`, { width });
       if (d.decision) doc.font(FONT.bold).fontSize(9).fillColor(COPPER).text(`Designer decision: ${d.decision.reason} (${d.decision.by})`, { width });
-      for (const r of d.reasons) doc.font(FONT.regular).fontSize(9).fillColor(MUTED).text(`• ${r}`, { width, indent: 8 });
+      for (const r of reasonsBesideDecision(d)) doc.font(FONT.regular).fontSize(9).fillColor(MUTED).text(`• ${r}`, { width, indent: 8 });
       for (const w of d.warnings) doc.font(FONT.bold).fontSize(9).fillColor(COPPER).text(`! ${w}`, { width, indent: 8 });
       doc.moveDown(0.4);
     }

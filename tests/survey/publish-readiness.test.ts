@@ -1,6 +1,6 @@
 // What the designer is asked to look at before publishing: each open thing once, in words.
 import { describe, expect, it } from "vitest";
-import { publishReadiness } from "../../survey/report";
+import { publishReadiness, reasonsBesideDecision } from "../../survey/report";
 
 const ready = { problems: 0, unpricedLines: 0, materialLines: 12, devicesWithGaps: 0, devicesLeftOut: 0, sincePublished: null };
 
@@ -26,5 +26,13 @@ describe("publishReadiness", () => {
       "1 device still has gaps from the walk (a typical power figure, a run not measured).",
       "1 of 1 material line is not priced yet: the total covers the priced lines only.",
     ]);
+  });
+});
+
+describe("reasonsBesideDecision", () => {
+  it("says the designer's reason once, above the reasons, not again among them", () => {
+    const reasons = ["Designer decision: Keep it on the cable.", "It takes power over its network cable (PoE)."];
+    expect(reasonsBesideDecision({ reasons, decision: { label: "PoE", reason: "Keep it on the cable.", by: "A designer" } })).toEqual(["It takes power over its network cable (PoE)."]);
+    expect(reasonsBesideDecision({ reasons, decision: null })).toEqual(reasons);
   });
 });

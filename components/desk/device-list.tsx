@@ -72,7 +72,13 @@ function DeviceRow({ siteId, plan, device: d, wide, editable, open, onToggle }: 
           <View style={styles.badges}>
             {d.mustStayUp ? <Badge label="must stay up" tone="copper" /> : null}
             {d.decision ? <Badge label={d.decision.forced ? "designer decision · forced" : "designer decision"} tone="warn" /> : null}
+            {d.homeowner ? <Badge label={d.homeowner.changesAsked ? `homeowner asked for changes` : `homeowner commented`} tone={d.homeowner.changesAsked ? "danger" : "neutral"} /> : null}
           </View>
+          {d.homeowner ? (
+            <AppText variant="caption" aria-label={`What the homeowner wrote about ${d.name}`}>
+              {`${d.homeowner.comments === 1 ? "1 comment" : `${d.homeowner.comments} comments`}${d.homeowner.changesAsked ? ` (${d.homeowner.changesAsked} asking for changes)` : ""}; the latest, on version ${d.homeowner.latest.version}, ${when(d.homeowner.latest.at)}: “${d.homeowner.latest.body}”`}
+            </AppText>
+          ) : null}
           <View style={styles.rowActions}>
             {editable ? <Button label={open ? "Close" : d.decision ? "Change" : "Override"} tone="secondary" onPress={onToggle} aria-label={`${open ? "Close" : "Override"} ${d.name}`} style={styles.smallButton} /> : null}
             {history.length ? (

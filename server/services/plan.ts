@@ -2,7 +2,7 @@
 // runs, with the designer's decisions applied, the materials priced, and the checklist counted.
 import { desc, eq, inArray } from "drizzle-orm";
 import type { Db } from "../../db/client";
-import { decisionHistory, deviceDecisions, items, reportVersions, signoffs, sitePlans, teams, users } from "../../db/schema";
+import { decisionHistory, deviceDecisions, items, reportComments, reportVersions, signoffs, sitePlans, teams, users } from "../../db/schema";
 import { assembleSite, type SiteItem } from "../../survey/capture";
 import { applyDecision, applyDecisions, defaultSplitter, POWER_METHODS, type AppliedDecisions, type DecisionCore, type PowerMethod, type SplitterChoice } from "../../survey/decisions";
 import type { CableRun, PowerInput } from "../../survey/model/device";
@@ -36,6 +36,8 @@ export interface PlanData {
   names: Map<string, string>;
   /** The latest published version of the site's scope, and when the homeowner signed it. */
   published: { version: number; publishedAt: Date; content: ReportContent; signedAt: Date | null } | null;
+  /** What the homeowner wrote on the published versions, newest first. */
+  comments: { itemRef: string; body: string; changeRequest: boolean; createdAt: Date; version: number }[];
 }
 
 /** Serialises plan writes with the team's pushes (same lock order as a push: the team row first). */
@@ -64,7 +66,15 @@ export async function loadPlanData(db: Reader, site: SiteWithAccess): Promise<Pl
     .where(eq(reportVersions.siteId, site.id))
     .orderBy(desc(reportVersions.version))
     .limit(1);
+  const comments = await db
+    .select({ itemRef: reportComments.itemRef, body: reportComments.body, changeRequest: reportComments.changeRequest, createdAt: reportComments.createdAt, version: reportVersions.version })
+    .from(reportComments)
+    .innerJoin(reportVersions, eq(reportVersions.id, reportComments.reportId))
+    .where(eq(reportVersions.siteId, site.id))
+    .orderBy(desc(reportComments.createdAt))
+    .limit(500);
   return {
+    comments,
     site,
     items: itemRows,
     decisions,
@@ -217,6 +227,8 @@ export interface PlanDevice extends DeviceEvaluation {
   placement: { sourceId: string; sourceName: string; port: number; pinned: boolean; auto: boolean } | null;
   unassigned: { code: string; reason: string } | null;
   outage: OutageDevice | null;
+  /** What the homeowner wrote about it on the published scope, if anything: counts and the latest. */
+  homeowner: { comments: number; changesAsked: number; latest: { body: string; at: string; version: number; changeRequest: boolean } } | null;
   pins: { sourceId: string | null; port: number | null };
   /** What the walk captured that the desk form needs. */
   captured: { input: PowerInput; run: CableRun | null; outletDistanceM: number | null; outdoor: boolean };
@@ -248,6 +260,17 @@ export function buildPlanView(data: PlanData) {
   const outageBy = new Map(evaluation.outage.devices.map((o) => [o.deviceId, o]));
   const sourceName = new Map(site.powerSources.map((s) => [s.id, s.name]));
   const autoPlaced = new Set(data.autoPlaced);
+  const homeownerBy = new Map<string, NonNullable<PlanDevice["homeowner"]>>();
+  for (const c of data.comments) {
+    // Newest first: the first one seen is the latest.
+    const seen = homeownerBy.get(c.itemRef);
+    if (seen) {
+      seen.comments++;
+      if (c.changeRequest) seen.changesAsked++;
+    } else {
+      homeownerBy.set(c.itemRef, { comments: 1, changesAsked: c.changeRequest ? 1 : 0, latest: { body: c.body, at: c.createdAt.toISOString(), version: c.version, changeRequest: c.changeRequest } });
+    }
+  }
   const devices: PlanDevice[] = applied.devices.map((e, i) => {
     const d = site.devices[i];
     const row = decisionRows.get(e.deviceId);
@@ -272,6 +295,7 @@ export function buildPlanView(data: PlanData) {
       placement: p ? { sourceId: p.sourceId, sourceName: sourceName.get(p.sourceId) ?? p.sourceId, port: p.port, pinned: p.pinned, auto: p.pinned && autoPlaced.has(p.deviceId) } : null,
       unassigned: unassignedBy.get(e.deviceId) ?? null,
       outage: outageBy.get(e.deviceId) ?? null,
+      homeowner: homeownerBy.get(e.deviceId) ?? null,
       pins: { sourceId: d.sourceId ?? null, port: d.port ?? null },
       captured: { input: d.input, run: d.run ?? null, outletDistanceM: d.outletDistanceM ?? null, outdoor: d.outdoor },
       methods: POWER_METHODS.filter((method) => applyDecision(d, base[i], { method, reason: "check" }, site.settings).ok),

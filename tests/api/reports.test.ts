@@ -142,6 +142,11 @@ describe("the client's review", () => {
     expect(site.status).toBe("changes_asked");
     const seen = await designer.get(`/api/reports/${latestId}`).expect(200);
     expect(seen.body.comments.map((c: { body: string }) => c.body)).toEqual(["Can this one move to the other wall?", "Please put the camera higher."]);
+    // The designer sees them on the plan's device row too, not only on the Report tab.
+    const plan = (await designer.get(`/api/sites/${DEMO_SITE_ID}/plan`).expect(200)).body.plan;
+    const row = plan.devices.find((d: { deviceId: string }) => d.deviceId === device.id);
+    expect(row.homeowner).toMatchObject({ comments: 2, changesAsked: 1, latest: { body: "Please put the camera higher.", changeRequest: true, version: list.body.reports[0].version } });
+    expect(plan.devices.filter((d: { homeowner: unknown }) => d.homeowner !== null)).toHaveLength(1);
     const bad = await client.post(`/api/reports/${latestId}/comments`).send({ itemRef: "no-such-device", body: "x" }).expect(400);
     expect(bad.body.error.fields.itemRef).toEqual(["Not a device of this report."]);
   });

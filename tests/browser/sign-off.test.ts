@@ -27,6 +27,9 @@ describe("the homeowner signs off on a phone", () => {
 
     const commentButton = page.getByRole("button", { name: /^Comment on / }).first();
     const deviceName = ((await commentButton.getAttribute("aria-label")) ?? "").replace("Comment on ", "");
+    const scope = (await designer.get(`/api/sites/${DEMO_SITE_ID}/reports`).expect(200)).body.reports[0];
+    const content = (await designer.get(`/api/reports/${scope.id}`).expect(200)).body.content;
+    const commentedId: string = content.rooms.flatMap((r: { devices: { id: string; name: string }[] }) => r.devices).find((d: { name: string }) => d.name === deviceName).id;
     await commentButton.click();
     await page.getByRole("textbox", { name: `Your comment on ${deviceName}` }).fill("Could this go a little higher on the wall?");
     await page.getByRole("button", { name: "Send comment" }).click();
@@ -68,6 +71,10 @@ describe("the homeowner signs off on a phone", () => {
     await dp.getByText("Changed since the homeowner signed version 1").waitFor();
     await dp.getByText(/Materials total 0\.00 → .*publish version 2 on the Report tab/).waitFor();
     await screenshot(dp, "plan-changed-since-signed-desktop");
+    // The homeowner's comment shows on the device's row of the plan, where the designer works.
+    const commented = dp.getByTestId(`device-${commentedId}`);
+    await commented.getByText("homeowner commented", { exact: true }).waitFor();
+    await commented.getByLabel(`What the homeowner wrote about ${deviceName}`).getByText(/Could this go a little higher on the wall\?/).waitFor();
     await dp.goto(`${suite.server.url}/sites/${DEMO_SITE_ID}/report`);
     await dp.getByText("Changed since the homeowner signed version 1").waitFor();
     await desk.close();

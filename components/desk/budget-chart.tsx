@@ -30,7 +30,7 @@ export function BudgetChart({ sw }: { sw: PlanSwitch }) {
       <Svg width={width} height={height}>
         <Rect x={LABEL_W} y={16} width={x(sw.budgetW) - LABEL_W} height={62} fill={colors.slate50} />
         {rows.map((r) => (
-          <SvgTextRow key={r.label} {...r} x={x} />
+          <SvgTextRow key={r.label} {...r} x={x} lines={[x(sw.ceilingW), x(sw.budgetW)]} />
         ))}
         <Line x1={x(sw.ceilingW)} x2={x(sw.ceilingW)} y1={14} y2={80} stroke={colors.warn} strokeWidth={2} strokeDasharray="5 4" />
         <Line x1={x(sw.budgetW)} x2={x(sw.budgetW)} y1={14} y2={88} stroke={colors.ink} strokeWidth={2} />
@@ -48,8 +48,12 @@ export function BudgetChart({ sw }: { sw: PlanSwitch }) {
   );
 }
 
-function SvgTextRow({ label, value, color, y, state, x, basis }: { label: string; value: number; color: string; y: number; state: string; x: (w: number) => number; basis: boolean }) {
+function SvgTextRow({ label, value, color, y, state, x, basis, lines }: { label: string; value: number; color: string; y: number; state: string; x: (w: number) => number; basis: boolean; lines: number[] }) {
   const end = x(value);
+  const figure = `${formatNumber(value, 1)} W`;
+  // About 7 px a character at this size: inside the bar only where no ceiling or budget line crosses it.
+  const figureW = figure.length * 7 + 6;
+  const inside = end - LABEL_W > 64 && !lines.some((l) => l > end - figureW - 2 && l < end + 2);
   const over = state === "over_budget" || state === "over_ceiling";
   const fill = state === "over_budget" ? colors.danger : state === "over_ceiling" ? colors.warn : basis ? color : colors.slate100;
   const stroke = basis ? "none" : colors.slate600;
@@ -59,16 +63,16 @@ function SvgTextRow({ label, value, color, y, state, x, basis }: { label: string
         {label}
       </SvgText>
       <Rect x={LABEL_W} y={y} width={Math.max(1, end - LABEL_W)} height={BAR_H} rx={3} fill={fill} stroke={stroke} strokeWidth={1} strokeDasharray={basis ? undefined : "3 2"} />
-      {/* The figure sits inside a long bar (clear of the ceiling and budget lines), after a short one. */}
+      {/* The figure sits inside a long bar when no line crosses it there, else just after the bar's end. */}
       <SvgText
-        x={end - LABEL_W > 64 ? end - 5 : end + 4}
+        x={inside ? end - 5 : end + 4}
         y={y + 13}
         fontSize={12}
         fontFamily={fonts.bold}
-        textAnchor={end - LABEL_W > 64 ? "end" : "start"}
-        fill={end - LABEL_W > 64 ? (basis || over ? colors.onDark : colors.ink) : state === "over_budget" ? colors.danger : over ? colors.warn : colors.ink}
+        textAnchor={inside ? "end" : "start"}
+        fill={inside ? (basis || over ? colors.onDark : colors.ink) : state === "over_budget" ? colors.danger : over ? colors.warn : colors.ink}
       >
-        {`${formatNumber(value, 1)} W`}
+        {figure}
       </SvgText>
     </>
   );

@@ -222,7 +222,7 @@ function PortTable({ sw, editable, onMove, moving, narrow }: { sw: PlanSwitch; e
         return (
           <View key={p} style={styles.tr} role="row" aria-label={`Port ${p}${r ? `: ${r.deviceName}` : ": free"}`}>
             <AppText style={[styles.td, port]}>{p}</AppText>
-            <AppText style={[styles.td, styles.device, { fontFamily: r?.critical ? fonts.bold : fonts.regular }]} numberOfLines={1}>{r ? `${r.deviceName}${r.pinned ? " •" : ""}` : "free"}</AppText>
+            <AppText style={[styles.td, styles.device, { fontFamily: r?.critical ? fonts.bold : fonts.regular }]} numberOfLines={2}>{r ? `${r.pinned ? "• " : ""}${r.deviceName}` : "free"}</AppText>
             <AppText style={[styles.td, num]}>{r ? r.poeClass : ""}</AppText>
             <AppText style={[styles.td, num]}>{r ? `${formatNumber(r.reservedW, 1)} W` : ""}</AppText>
             <AppText style={[styles.td, num]}>{r ? `${formatNumber(r.expectedPseW, 1)} W` : ""}</AppText>
@@ -234,7 +234,7 @@ function PortTable({ sw, editable, onMove, moving, narrow }: { sw: PlanSwitch; e
           </View>
         );
       })}
-      <AppText variant="caption" muted style={{ padding: space.xs }}>Bold: must stay up (shed last). • pinned.</AppText>
+      <AppText variant="caption" muted style={{ padding: space.xs }}>Bold: must stay up (shed last). • before a name: held on that port.</AppText>
     </View>
   );
 }

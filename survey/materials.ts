@@ -183,17 +183,18 @@ export function buildMaterials(site: Site, evaluation: SiteEvaluation): Material
   }
 
   // Cable and terminations, per drop.
-  const cableGroups = new Map<string, { category: CableCategory; outdoor: boolean; metres: number; drops: number; cca: number; deviceIds: string[] }>();
+  const cableGroups = new Map<string, { category: CableCategory; outdoor: boolean; metres: number; drops: number; cca: number; tooLong: number; deviceIds: string[] }>();
   const plates = { indoor: [] as string[], outdoor: [] as string[] };
   const keystones = new Map<CableCategory, string[]>();
   for (const run of evaluation.cableRuns) {
     const device = deviceById.get(run.deviceId);
     const outdoor = Boolean(device && (device.outdoor || device.cableAccess === "exterior"));
     const key = `${run.category}|${outdoor}`;
-    const g = cableGroups.get(key) ?? { category: run.category, outdoor, metres: 0, drops: 0, cca: 0, deviceIds: [] };
+    const g = cableGroups.get(key) ?? { category: run.category, outdoor, metres: 0, drops: 0, cca: 0, tooLong: 0, deviceIds: [] };
     g.metres += orderLengthM(run.lengthM);
     g.drops++;
     if (run.cca) g.cca++;
+    if (!run.withinChannel) g.tooLong++;
     g.deviceIds.push(run.deviceId);
     cableGroups.set(key, g);
     (outdoor ? plates.outdoor : plates.indoor).push(run.deviceId);
@@ -208,6 +209,9 @@ export function buildMaterials(site: Site, evaluation: SiteEvaluation): Material
     const unit = units === "imperial" ? "ft" : "m";
     const notes = [`${g.drops} drop${g.drops === 1 ? "" : "s"}, with 10 % slack and a 3 m service loop each.`];
     if (g.cca) notes.push(`${g.cca} run${g.cca === 1 ? " was" : "s were"} captured as copper-clad aluminium: order solid copper, never CCA.`);
+    if (g.tooLong) {
+      notes.push(`${g.tooLong === 1 ? "1 run is" : `${g.tooLong} runs are`} longer than a network cable may be (100 m with its cords, TIA-568) and counted as captured: a switch nearer the device shortens ${g.tooLong === 1 ? "it" : "them"}.`);
+    }
     if (g.outdoor) notes.push("Outdoor runs need UV / burial rated cable, surge protection and bonding where they enter the house.");
     lines.push({
       key: `cable:${g.category}:${g.outdoor ? "outdoor" : "indoor"}:${unit}`,

@@ -83,6 +83,16 @@ describe("what changes the materials", () => {
     expect(extra.deviceIds.length).toBeGreaterThan(0);
   });
 
+  it("a run longer than a network cable may be is ordered as captured, and its line says so", () => {
+    // TIA-568: 100 m channel, 90 m permanent link + cords (../shared/reference/poe-facts.md).
+    expect(line(materialsOf(demoSite), "cable:cat6:indoor:m")!.note).not.toMatch(/longer than a network cable may be/);
+    const s = site((x) => {
+      const ap = x.devices.find((d) => d.id === "ap-living")! as { run?: { lengthM: number; category: string } };
+      ap.run = { lengthM: 150, category: "cat6" };
+    });
+    expect(line(materialsOf(s), "cable:cat6:indoor:m")!.note).toMatch(/1 run is longer than a network cable may be \(100 m with its cords, TIA-568\) and counted as captured: a switch nearer the device shortens it\./);
+  });
+
   it("a designer decision moves a device between groups", () => {
     const base = demoSite.devices.map((d) => evaluateDevice(d, demoSite));
     const applied = applyDecisions(demoSite, base, new Map([["hub-hall", { method: "poe_splitter" as const, reason: "keep the hub on the cable" }]]));

@@ -85,6 +85,8 @@ export async function decideDevice(db: Db, actor: SignedInActor, site: SiteWithA
     const poeMethod = POE_METHODS.has(input.method);
     const current = pinsOf(planned, deviceId);
     let pins = current;
+    // The devices whose pins the automatic assignment wrote (they give way to a hand placement).
+    const autoPlaced = new Set(data.autoPlaced);
     // A device the automatic assignment left on the port taken by hand: the rules place it again.
     let bumped: string | null = null;
     if (input.sourceId !== undefined) {
@@ -94,7 +96,7 @@ export async function decideDevice(db: Db, actor: SignedInActor, site: SiteWithA
       if (!poeMethod && src.kind !== "outlet") {
         throw new HttpError(400, "invalid_input", "Powered from an outlet, it takes no PoE port.", { sourceId: [`"${src.name}" is a PoE ${src.kind === "injector" ? "injector" : "switch"}: choose one of the closet's outlets, or none.`] });
       }
-      if (input.port !== undefined) bumped = checkPort(planned, src, deviceId, input.port, new Set(data.autoPlaced));
+      if (input.port !== undefined) bumped = checkPort(planned, src, deviceId, input.port, autoPlaced);
       pins = { sourceId: src.id, port: input.port ?? null };
     } else if (current.sourceId) {
       const src = planned.powerSources.find((s) => s.id === current.sourceId);
@@ -109,7 +111,6 @@ export async function decideDevice(db: Db, actor: SignedInActor, site: SiteWithA
     // placed keeps the port it has now (installers label patch ports), except one on the very port
     // taken, which the rules place again. Those holds are the automatic assignment's pins, so
     // "Assign ports" may still move them later.
-    const autoPlaced = new Set(data.autoPlaced);
     const held = input.sourceId !== undefined && poeMethod && pins.sourceId
       ? before.assignment.placements.filter((p) =>
           (!p.pinned || autoPlaced.has(p.deviceId)) && p.deviceId !== deviceId && p.deviceId !== bumped && !(p.sourceId === pins.sourceId && p.port === pins.port))

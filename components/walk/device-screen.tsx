@@ -32,6 +32,7 @@ import { AdviceCard } from "./advice-card";
 import { ConfirmDelete } from "./confirm-delete";
 import { DesignerDecisionCard } from "./designer-decision-card";
 import { PhotoStrip } from "./photo-strip";
+import { ScopeStatusNotice } from "./scope-status-notice";
 import { SyncPill } from "./sync-pill";
 
 const choices = <T extends string>(values: readonly T[], words: Readonly<Record<T, string>>) => values.map((value) => ({ value, label: words[value] }));
@@ -317,6 +318,7 @@ function DeviceEditor({ siteId, deviceId, site, walk, items, photos, back }: { s
   return (
     <Screen title={device.name} subtitle={`${KIND_WORDS[device.data.kind as keyof typeof KIND_WORDS] ?? "Device"}${back.label ? ` · ${back.label}` : ""}`} back={back}>
       <SyncPill />
+      <ScopeStatusNotice status={site.status} />
       {wide ? (
         <View style={styles.columns}>
           <View style={{ flex: 3, minWidth: 0 }}>{formColumn}</View>

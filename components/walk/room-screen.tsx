@@ -22,6 +22,7 @@ import { AdviceBadge } from "./advice-card";
 import { ConfirmDelete } from "./confirm-delete";
 import { GapList } from "./gap-list";
 import { PhotoStrip } from "./photo-strip";
+import { ScopeStatusNotice } from "./scope-status-notice";
 import { SyncPill } from "./sync-pill";
 
 function DeviceRow({ siteId, device }: { siteId: string; device: WalkDevice }) {
@@ -153,6 +154,7 @@ export function RoomScreen() {
   return (
     <Screen title={room.name} subtitle={`${floor?.name ?? "No floor"} · ${room.devices.length === 1 ? "1 device" : `${room.devices.length} devices`} · ${gapsLabel(room.gapCount)}`} back={back} actions={room.isCloset ? <Badge label="network closet" /> : undefined}>
       <SyncPill />
+      {site ? <ScopeStatusNotice status={site.status} /> : null}
       {room.gapLines.length ? (
         <Card role="region" aria-label="Gaps in this room">
           <AppText variant="subheading">Gaps in this room</AppText>

@@ -19,6 +19,7 @@ import type { RoomType } from "@/survey/walk/words";
 import { AddFloorPanel } from "./add-floor-panel";
 import { AddRoomPanel } from "./add-room-panel";
 import { GapList } from "./gap-list";
+import { ScopeStatusNotice } from "./scope-status-notice";
 import { SyncPill } from "./sync-pill";
 
 const devicesWord = (n: number) => (n === 1 ? "1 device" : `${n} devices`);
@@ -208,6 +209,7 @@ export function WalkPanel({ siteId, after }: { siteId: string; after?: ReactNode
   return (
     <>
       <SyncPill />
+      <ScopeStatusNotice status={site.status} />
       {wide ? (
         <View style={styles.columns}>
           <View style={{ flex: 3, minWidth: 0 }}>{floorsColumn}</View>

@@ -56,6 +56,16 @@ describe("the homeowner signs off on a phone", () => {
     await screenshot(usedPage, "sign-in-link-used-phone");
     await again.close();
 
+    // The surveyor's walk says the scope is signed: what is captured now reaches the homeowner only in a new version.
+    const walker = await suite.browser.newContext({ viewport: PHONE });
+    const wp = await walker.newPage();
+    await signInThroughUi(wp, suite.server, "priya@lanternfield.test");
+    await wp.getByRole("link", { name: /Okonkwo-Lindqvist house/ }).click();
+    await wp.getByText("The homeowner signed this scope").waitFor();
+    await wp.getByText(/What you change now is not in what they signed/).waitFor();
+    await screenshot(wp, "walk-signed-phone");
+    await walker.close();
+
     const desk = await suite.browser.newContext({ viewport: DESKTOP });
     const dp = await desk.newPage();
     await signInThroughUi(dp, suite.server, "tomas@lanternfield.test");

@@ -289,7 +289,7 @@ function DeviceEditor({ siteId, deviceId, site, walk, items, photos, back }: { s
           errors={errors.runCca}
         />
         {form.runLength || form.runCategory ? (
-          <Button tone="quiet" label="No run yet" onPress={() => setMany({ runLength: "", runCategory: undefined, runGauge: "", runCca: false })} style={{ alignSelf: "flex-start" }} />
+          <Button tone="secondary" label="Clear the cable run" onPress={() => setMany({ runLength: "", runCategory: undefined, runGauge: "", runCca: false })} style={{ alignSelf: "flex-start" }} />
         ) : null}
       </Card>
 

@@ -1,4 +1,5 @@
-import { ActivityIndicator, Pressable, StyleSheet, type PressableProps, type ViewStyle } from "react-native";
+import type { Ref } from "react";
+import { ActivityIndicator, Pressable, StyleSheet, type PressableProps, type View, type ViewStyle } from "react-native";
 import { colors, fonts, minTouch, radius, space } from "@/constants/theme";
 import { AppText } from "./text";
 
@@ -9,12 +10,15 @@ export interface ButtonProps extends Omit<PressableProps, "style" | "children"> 
   tone?: Tone;
   busy?: boolean;
   style?: ViewStyle;
+  /** To move the focus to it (a confirmation that opens in place). */
+  ref?: Ref<View>;
 }
 
-export function Button({ label, tone = "primary", busy, disabled, style, ...rest }: ButtonProps) {
+export function Button({ label, tone = "primary", busy, disabled, style, ref, ...rest }: ButtonProps) {
   const inactive = disabled || busy;
   return (
     <Pressable
+      ref={ref}
       role="button"
       aria-label={label}
       aria-disabled={inactive || undefined}

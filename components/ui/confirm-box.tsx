@@ -1,4 +1,4 @@
-import { useRef, useState, type ReactNode } from "react";
+import { useEffect, useRef, useState, type ReactNode } from "react";
 import { StyleSheet, View } from "react-native";
 import { Button } from "@/components/ui/button";
 import { AppText } from "@/components/ui/text";
@@ -20,6 +20,12 @@ export function ConfirmBox({ question, detail, confirmLabel, keepLabel = "Keep i
 }) {
   const [busy, setBusy] = useState(false);
   const running = useRef(false);
+  // The box opens where the button was: the focus goes to its safe answer, so a keyboard user is
+  // in the question at once and Enter keeps things as they are.
+  const keep = useRef<View>(null);
+  useEffect(() => {
+    (keep.current as unknown as { focus?: () => void } | null)?.focus?.();
+  }, []);
   return (
     <View role="alertdialog" aria-label={question} style={styles.box}>
       <AppText style={{ color: colors.danger, fontWeight: "700" }}>{question}</AppText>
@@ -42,7 +48,7 @@ export function ConfirmBox({ question, detail, confirmLabel, keepLabel = "Keep i
             }
           }}
         />
-        <Button tone="quiet" label={keepLabel} onPress={onCancel} />
+        <Button ref={keep} tone="quiet" label={keepLabel} onPress={onCancel} />
       </View>
     </View>
   );

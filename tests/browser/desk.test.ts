@@ -146,7 +146,9 @@ describe("the designer's desk", () => {
     await ask.getByText(/on its ports los(es its port|e their ports): the plan moves (it|them) to (another source|other sources) with room/).waitFor();
     await ask.scrollIntoViewIfNeeded();
     await screenshot(page, "desk-closet-remove-desktop");
-    await ask.getByRole("button", { name: "Keep it" }).click();
+    // The focus is on the safe answer: Enter keeps the switch.
+    expect(await page.evaluate(() => document.activeElement?.getAttribute("aria-label"))).toBe("Keep it");
+    await page.keyboard.press("Enter");
     await ask.waitFor({ state: "detached" });
     await page.getByRole("table", { name: "Ports of Garage switch" }).getByRole("row", { name: "Port 2: Bedroom 2 desk switch" }).waitFor();
     await page.getByRole("button", { name: "Remove Garage switch" }).click();

@@ -14,7 +14,7 @@ import * as v from "valibot";
 import { injectorClassWords, localInjectorClass } from "./decisions";
 import type { Site } from "./model/site";
 import { orderLengthM, type SiteEvaluation } from "./rules/evaluate-site";
-import { CABLE_CATEGORY_NAMES, type CableCategory } from "./standards/cabling";
+import { CABLE_CATEGORY_NAMES, CHANNEL_LIMITS, type CableCategory } from "./standards/cabling";
 import { PLANNING } from "./standards/planning-defaults";
 import type { PoeClass } from "./standards/poe-classes";
 import { POE_TYPES, type PoeType } from "./standards/poe-types";
@@ -210,7 +210,7 @@ export function buildMaterials(site: Site, evaluation: SiteEvaluation): Material
     const notes = [`${g.drops} drop${g.drops === 1 ? "" : "s"}, with 10 % slack and a 3 m service loop each.`];
     if (g.cca) notes.push(`${g.cca} run${g.cca === 1 ? " was" : "s were"} captured as copper-clad aluminium: order solid copper, never CCA.`);
     if (g.tooLong) {
-      notes.push(`${g.tooLong === 1 ? "1 run is" : `${g.tooLong} runs are`} longer than a network cable may be (100 m with its cords, TIA-568) and counted as captured: a switch nearer the device shortens ${g.tooLong === 1 ? "it" : "them"}.`);
+      notes.push(`${g.tooLong === 1 ? "1 run is" : `${g.tooLong} runs are`} longer than a network cable may be (${CHANNEL_LIMITS.channelMaxM} m with its cords, TIA-568) and counted as captured: a switch nearer the device shortens ${g.tooLong === 1 ? "it" : "them"}.`);
     }
     if (g.outdoor) notes.push("Outdoor runs need UV / burial rated cable, surge protection and bonding where they enter the house.");
     lines.push({

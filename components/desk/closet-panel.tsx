@@ -29,16 +29,7 @@ export function ClosetPanel({ siteId, plan, wide, editable }: { siteId: string; 
   const [notice, setNotice] = useState<string | null>(null);
   // The closet item whose Remove was pressed: it asks once more before anything goes.
   const [removing, setRemoving] = useState<string | null>(null);
-  const remove = (id: string, mutation: typeof removeSource) =>
-    new Promise<void>((resolve) =>
-      mutation.mutate(id, {
-        onError: (e) => setNotice(e.message),
-        onSettled: () => {
-          setRemoving(null);
-          resolve();
-        },
-      }),
-    );
+  const remove = (id: string, mutation: typeof removeSource) => mutation.mutateAsync(id).catch((e: Error) => setNotice(e.message));
   const switchBy = new Map(plan.switches.map((s) => [s.sourceId, s]));
   const batteryOf = new Map<string, string>();
   for (const b of plan.closet.batteries) for (const f of (b.data.feeds as string[] | undefined) ?? []) batteryOf.set(f, String(b.data.name));
@@ -120,7 +111,7 @@ export function ClosetPanel({ siteId, plan, wide, editable }: { siteId: string; 
                 detail={removalConsequence(data.kind, sw, outletDevices(s.id).length)}
                 confirmLabel="Yes, remove it"
                 onConfirm={() => remove(s.id, removeSource)}
-                onCancel={() => setRemoving(null)}
+                onClose={() => setRemoving(null)}
               />
             ) : null}
             {isEditing ? <SourceForm siteId={siteId} item={s} onDone={done} /> : null}
@@ -186,7 +177,7 @@ export function ClosetPanel({ siteId, plan, wide, editable }: { siteId: string; 
                 detail="What it feeds is no longer counted as on battery: devices that must stay up in a power cut may then go down."
                 confirmLabel="Yes, remove it"
                 onConfirm={() => remove(b.id, removeBattery)}
-                onCancel={() => setRemoving(null)}
+                onClose={() => setRemoving(null)}
               />
             ) : null}
             {isEditing ? <BatteryForm siteId={siteId} plan={plan} item={b} onDone={done} /> : null}

@@ -105,8 +105,9 @@ function PublishButton({ siteId, nextVersion, disabled, busy, publish }: { siteI
       detail={!plan ? "Reading the plan…" : open.length ? "Still open:" : "Nothing is open in the plan."}
       confirmLabel="Yes, publish and e-mail"
       keepLabel="Not yet"
-      onConfirm={() => publish().then(() => setAsking(false), () => setAsking(false))}
-      onCancel={() => setAsking(false)}
+      // A refusal shows in the card's banner (publish.error).
+      onConfirm={() => publish().catch(() => undefined)}
+      onClose={() => setAsking(false)}
     >
       {open.length ? (
         <View role="list" aria-label="Still open before publishing" style={{ gap: 2 }}>

@@ -94,8 +94,9 @@ export function TeamScreen() {
                 question={`Remove ${m.name ?? m.email} from the team?`}
                 detail="They lose access to the team's sites at once. What they have synced stays on the sites; changes still only on their phone no longer reach the team, so ask them to sync first."
                 confirmLabel="Yes, remove them"
-                onConfirm={() => remove.mutateAsync(m.id).then(() => setRemoving(null), () => setRemoving(null))}
-                onCancel={() => setRemoving(null)}
+                // A refusal shows in the screen's banner (mutationError).
+                onConfirm={() => remove.mutateAsync(m.id).catch(() => undefined)}
+                onClose={() => setRemoving(null)}
               />
             ) : null}
             <ChoiceChips label={`Role of ${m.name ?? m.email}`} value={m.role as TeamRole} choices={ROLE_CHOICES} onChange={(r) => changeRole.mutate({ id: m.id, role: r })} />

@@ -6,16 +6,17 @@ import { colors, radius, space } from "@/constants/theme";
 
 /**
  * Asks once more, in place, before something is removed: the question, what follows from it, and
- * two answers. The box stays until the removal has gone through or the person keeps the thing.
- * A second press while the first is still going through does nothing (a double click acts once).
+ * two answers. `onClose` closes it: on the safe answer, and once the confirmed action has gone
+ * through or failed (`onConfirm` shows its own error). A second press while the first is still
+ * going through does nothing (a double click acts once).
  */
-export function ConfirmBox({ question, detail, confirmLabel, keepLabel = "Keep it", onConfirm, onCancel, children }: {
+export function ConfirmBox({ question, detail, confirmLabel, keepLabel = "Keep it", onConfirm, onClose, children }: {
   question: string;
   detail?: string;
   confirmLabel: string;
   keepLabel?: string;
   onConfirm: () => Promise<unknown> | void;
-  onCancel: () => void;
+  onClose: () => void;
   children?: ReactNode;
 }) {
   const [busy, setBusy] = useState(false);
@@ -45,10 +46,11 @@ export function ConfirmBox({ question, detail, confirmLabel, keepLabel = "Keep i
             } finally {
               running.current = false;
               setBusy(false);
+              onClose();
             }
           }}
         />
-        <Button ref={keep} tone="quiet" label={keepLabel} onPress={onCancel} />
+        <Button ref={keep} tone="quiet" label={keepLabel} onPress={onClose} />
       </View>
     </View>
   );

@@ -6,5 +6,5 @@ import { ConfirmBox } from "@/components/ui/confirm-box";
 export function ConfirmDelete({ label, question, onConfirm }: { label: string; question: string; onConfirm: () => Promise<void> }) {
   const [asking, setAsking] = useState(false);
   if (!asking) return <Button tone="secondary" label={label} onPress={() => setAsking(true)} style={{ alignSelf: "flex-start" }} />;
-  return <ConfirmBox question={question} confirmLabel={`Yes, ${label.toLowerCase()}`} onConfirm={onConfirm} onCancel={() => setAsking(false)} />;
+  return <ConfirmBox question={question} confirmLabel={`Yes, ${label.toLowerCase()}`} onConfirm={onConfirm} onClose={() => setAsking(false)} />;
 }

@@ -312,7 +312,7 @@ export function buildPlanView(data: PlanData) {
   const validBattery = new Map(site.batteries.map((b) => [b.id, b]));
   const nameOf = (i: ItemRow) => (typeof i.data.name === "string" ? i.data.name : i.id);
   // Devices counted exactly as the surveyor's walk counts them (walkProgress): the same numbers on both.
-  const progress = walkProgress({ closetRoomId: data.site.closetRoomId }, data.items);
+  const progress = walkProgress({ closetRoomId: data.site.closetRoomId }, data.items, planned.incompleteDeviceIds);
   const leftOut = progress.leftOutDeviceIds.map((id) => ({ id, name: nameOf(live.find((i) => i.id === id)!) }));
   const lastChange = live.reduce<Date | null>((m, i) => (m === null || i.updatedAt > m ? i.updatedAt : m), null);
   const published = data.published;

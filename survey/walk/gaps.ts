@@ -5,6 +5,7 @@ import { assembleSite } from '../capture';
 import { deviceEntries, type DeviceKind } from '../model/device';
 import { FloorSchema, RoomSchema } from '../model/site';
 import { CHANNEL_LIMITS } from '../standards/cabling';
+import { lengthFromSI } from '../units';
 import { fieldErrors } from '../validation';
 import { KIND_WORDS } from './words';
 
@@ -57,10 +58,11 @@ const present = (x: unknown) => x !== undefined && x !== null;
  * A run longer than TIA-568's 90 m permanent link (100 m channel with its cords) is something to
  * settle at the house: measure it again, find a shorter path, or note a place for a switch nearer.
  */
+const LINK_LIMIT = `${CHANNEL_LIMITS.permanentLinkMaxM} m (${Math.round(lengthFromSI(CHANNEL_LIMITS.permanentLinkMaxM, 'imperial'))} ft)`;
 const RUN_LONG: DeviceGap = {
   code: 'run_long',
   field: 'run',
-  text: `its run is over the ${CHANNEL_LIMITS.permanentLinkMaxM} m (295 ft) a network cable may run to the closet: measure it again, find a shorter path, or note where a switch nearer could go`,
+  text: `its run is over the ${LINK_LIMIT} a network cable may run to the closet: measure it again, find a shorter path, or note where a switch nearer could go`,
 };
 
 /**
@@ -138,7 +140,7 @@ const GROUP_WORDS: Readonly<Record<DeviceGapCode, { one: (who: string) => string
   cable_access: { one: (who) => `no cable access for ${who}`, many: (n) => `${n} devices have no cable access` },
   run: { one: (who) => `no run length for ${who}`, many: (n) => `${n} devices have no run length` },
   polarity: { one: (who) => `the plug polarity of ${who} is not read yet`, many: (n) => `${n} devices have a plug polarity not read yet` },
-  run_long: { one: (who) => `the run of ${who} is over 90 m (295 ft): measure again or find a shorter path`, many: (n) => `${n} devices have runs over 90 m (295 ft): measure again or find shorter paths` },
+  run_long: { one: (who) => `the run of ${who} is over ${LINK_LIMIT}: measure again or find a shorter path`, many: (n) => `${n} devices have runs over ${LINK_LIMIT}: measure again or find shorter paths` },
   invalid: { one: (who) => `a field of ${who} needs fixing`, many: (n) => `${n} devices have a field that needs fixing` },
 };
 
@@ -245,8 +247,11 @@ export function siteGaps(meta: { closetRoomId: string | null }, items: readonly 
   return [...walkProgress(meta, items).lines];
 }
 
-/** Walk progress for the sites list and the walk view: counts, gap count and the checklist. */
-export function walkProgress(meta: { closetRoomId: string | null }, items: readonly GapItem[]): WalkProgress {
+/**
+ * Walk progress for the sites list and the walk view: counts, gap count and the checklist.
+ * `leftOutDeviceIds`, when the caller has just assembled the site itself, saves assembling it again.
+ */
+export function walkProgress(meta: { closetRoomId: string | null }, items: readonly GapItem[], leftOutDeviceIds?: readonly string[]): WalkProgress {
   const { floors, rooms, devices } = live(items);
   const floorIds = new Set(floors.map((f) => f.id));
   const roomIds = new Set(rooms.map((r) => r.id));
@@ -254,8 +259,8 @@ export function walkProgress(meta: { closetRoomId: string | null }, items: reado
   const roomLines = rooms.flatMap((r) => roomOwnGaps(r.data, floorIds));
   const deviceData = devices.map((d) => d.data);
   // Left out of the plan: exactly the devices the plan leaves out when it assembles the site.
-  const leftOutDeviceIds = assembleSite({ id: '', name: '', closetRoomId: meta.closetRoomId }, items).incompleteDeviceIds;
-  const leftOut = new Set(leftOutDeviceIds);
+  const leftOutIds = leftOutDeviceIds ?? assembleSite({ id: '', name: '', closetRoomId: meta.closetRoomId }, items).incompleteDeviceIds;
+  const leftOut = new Set(leftOutIds);
   let deviceGapCount = 0;
   let devicesComplete = 0;
   devices.forEach((d, k) => {
@@ -270,7 +275,7 @@ export function walkProgress(meta: { closetRoomId: string | null }, items: reado
     devicesComplete,
     devicesWithGaps: devices.length - devicesComplete - leftOut.size,
     devicesLeftOut: leftOut.size,
-    leftOutDeviceIds,
+    leftOutDeviceIds: leftOutIds,
     gapCount: own.length + roomLines.length + deviceGapCount,
     lines: [...own, ...roomLines, ...groupDeviceGaps(deviceData, roomIds)],
   };

@@ -19,6 +19,8 @@ const POWER_FIGURE_KEYS: readonly FormKey[] = ["watts", "volts", "amps"];
 export interface SaveOutcome {
   saved: string[];
   held: string[];
+  /** The inputs marked with a message for the held fields, by label. */
+  marked: string[];
 }
 
 export function useDeviceForm(opts: { deviceId: string; stored: Data; units: UnitSystem; meta: WalkSiteMeta; items: readonly SiteItem[]; save: (patch: Record<string, unknown>) => Promise<unknown> }) {
@@ -84,10 +86,10 @@ export function useDeviceForm(opts: { deviceId: string; stored: Data; units: Uni
   }, [draftKey, waitingKey, items, meta, deviceId]);
 
   async function submit(): Promise<SaveOutcome> {
-    const { patch, check, held } = devicePatch(state.initial, state.current, units);
+    const { patch, check, held, marked } = devicePatch(state.initial, state.current, units);
     setErrors(check.errors);
     const saved = Object.keys(patch);
-    if (saved.length === 0) return { saved, held };
+    if (saved.length === 0) return { saved, held, marked };
     setSaving(true);
     try {
       await save(patch);
@@ -100,7 +102,7 @@ export function useDeviceForm(opts: { deviceId: string; stored: Data; units: Uni
     } finally {
       setSaving(false);
     }
-    return { saved, held };
+    return { saved, held, marked };
   }
 
   return { form: state.current, set, setMany, errors, dirty, advice, submit, saving };

@@ -22,7 +22,7 @@ import { CABLE_CATEGORY_VALUES } from "@/survey/standards/cabling";
 import { POE_CLASS_VALUES } from "@/survey/standards/poe-classes";
 import { unitLabel, type UnitSystem } from "@/survey/units";
 import { parseNumber, type DeviceForm } from "@/survey/walk/device-form";
-import { heldFieldWords } from "@/survey/walk/describe";
+import { heldNotice } from "@/survey/walk/describe";
 import { CABLE_ACCESS_WORDS, CATEGORY_WORDS, INPUT_WORDS, KIND_WORDS, MOUNT_WORDS, POLARITY_WORDS } from "@/survey/walk/words";
 import type { SiteItem } from "@/survey/capture";
 import type { SiteRecord } from "@/sync/protocol";
@@ -106,12 +106,13 @@ function DeviceEditor({ siteId, deviceId, site, walk, items, photos, back }: { s
     </View>
   );
 
+  const heldBack = outcome && outcome.held.length ? heldNotice(outcome.held, outcome.marked, outcome.saved.length > 0) : null;
   const saveBar = (
     <View style={{ gap: space.sm }}>
       {failure ? <Banner tone="danger">{failure}</Banner> : null}
-      {outcome && outcome.held.length ? (
-        <Banner tone="danger" title={outcome.held.length === 1 ? "One field needs fixing" : `${outcome.held.length} fields need fixing`}>
-          {`Check the ${outcome.held.map(heldFieldWords).join(", ")}: what you typed is still here, not saved yet.${outcome.saved.length ? " The other fields are saved on this phone." : ""}`}
+      {heldBack ? (
+        <Banner tone="danger" title={heldBack.title}>
+          {heldBack.text}
         </Banner>
       ) : outcome && outcome.saved.length && f.dirty.length === 0 ? (
         <Banner tone="good">Saved on this phone.</Banner>

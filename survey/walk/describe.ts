@@ -78,3 +78,19 @@ export function describeValue(field: string, value: unknown, units: UnitSystem):
       return JSON.stringify(value);
   }
 }
+
+/**
+ * The notice after a save that held fields back: the title counts the entries marked on screen
+ * (one field such as the cable run has several), the text names them and what waits with them.
+ */
+export function heldNotice(held: readonly string[], marked: readonly string[], savedOthers: boolean): { title: string; text: string } {
+  const count = marked.length > 0 ? marked.length : held.length;
+  const title = count === 1 ? 'One entry needs fixing' : `${count} entries need fixing`;
+  const fix = marked.length > 0 ? `Fix ${listWords(marked)} (marked in the form). ` : '';
+  const waiting = `Until then the ${listWords(held.map(heldFieldWords))} ${held.length === 1 ? 'is' : 'are'} not saved; what you typed is still here.`;
+  return { title, text: `${fix}${waiting}${savedOthers ? ' The other fields are saved on this phone.' : ''}` };
+}
+
+function listWords(xs: readonly string[]): string {
+  return xs.length <= 1 ? (xs[0] ?? '') : `${xs.slice(0, -1).join(', ')} and ${xs[xs.length - 1]}`;
+}

@@ -6,6 +6,7 @@ import type { CableAccess, DeviceKind, Mount, Polarity } from '../model/device';
 import type { AwgGauge } from '../standards/awg';
 import type { CableCategory } from '../standards/cabling';
 import { formatLength, formatNumber, lengthFromSI, lengthToSI, roundTo, type UnitSystem } from '../units';
+import { fieldWord } from './describe';
 import type { PowerInputType } from './words';
 
 type Data = Record<string, unknown>;
@@ -252,7 +253,9 @@ export function changedFields(initial: DeviceForm, current: DeviceForm): string[
  * What to send on save: only the changed fields that pass their schema. Bad fields stay in the
  * form with their messages, and what is already stored for them is left as it was.
  */
-export function devicePatch(initial: DeviceForm, current: DeviceForm, units: UnitSystem): { patch: Record<string, unknown>; check: FormCheck; held: string[] } {
+export function devicePatch(
+  initial: DeviceForm, current: DeviceForm, units: UnitSystem,
+): { patch: Record<string, unknown>; check: FormCheck; held: string[]; marked: string[] } {
   const check = checkDeviceForm(current, units);
   const patch: Record<string, unknown> = {};
   const held: string[] = [];
@@ -260,7 +263,23 @@ export function devicePatch(initial: DeviceForm, current: DeviceForm, units: Uni
     if (check.badFields.has(field)) held.push(field);
     else patch[field] = check.fields[field];
   }
-  return { patch, check, held };
+  return { patch, check, held, marked: markedInputs(held, check.errors) };
+}
+
+/**
+ * The inputs marked with a message on screen for the held fields, by their labels, in form
+ * order: what the surveyor has to fix (one stored field such as the run has several inputs).
+ */
+export function markedInputs(held: readonly string[], errors: FormErrors): string[] {
+  const labels: string[] = [];
+  for (const field of held) {
+    for (const k of FIELD_KEYS[field] ?? []) {
+      if ((errors[k]?.length ?? 0) === 0) continue;
+      const label = FORM_KEY_LABELS[k] ?? fieldWord(field);
+      if (!labels.includes(label)) labels.push(label);
+    }
+  }
+  return labels;
 }
 
 /**
@@ -302,6 +321,7 @@ const FORM_KEY_LABELS: Partial<Record<FormKey, string>> = {
   inputType: 'How it takes power', poeClass: 'PoE class', poeStandard: 'PoE standard', passiveVolts: 'Passive PoE volts',
   barrelOuter: 'Outer diameter', barrelInner: 'Inner diameter', polarity: 'Polarity', barrelVolts: 'Barrel volts', terminalVolts: 'Terminal volts',
   outletDistance: 'Nearest outlet distance', cableAccess: 'Cable access', runLength: 'Cable run to the closet', runCategory: 'Cable category',
+  terminalCurrent: 'Current at the terminals', runGauge: 'Conductor gauge', runCca: 'Conductor', notes: 'Notes',
 };
 
 export function draftData(stored: Data, current: DeviceForm, units: UnitSystem): Data {

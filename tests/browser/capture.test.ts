@@ -100,7 +100,8 @@ describe("capturing a walk on the phone", () => {
     expect(await page.getByRole("textbox", { name: "Cable run to the closet" }).inputValue()).toBe("18 m");
     expect(await page.getByRole("textbox", { name: "Cable run to the closet" }).getAttribute("aria-invalid")).toBe("true");
     // The run's parts are saved together: its category waits with the bad length, and the notice says so.
-    await page.getByText(/Check the cable run \(its length, category, gauge and copper-clad aluminium are saved together\): what you typed is still here, not saved yet\. The other fields are saved on this phone\./).waitFor();
+    await page.getByText("One entry needs fixing", { exact: true }).waitFor();
+    await page.getByText(/Fix Cable run to the closet \(marked in the form\)\. Until then the cable run \(its length, category, gauge and copper-clad aluminium are saved together\) is not saved; what you typed is still here\. The other fields are saved on this phone\./).waitFor();
     await page.getByRole("textbox", { name: "Cable run to the closet" }).evaluate((e) => e.scrollIntoView({ block: "center" }));
     await screenshot(page, "capture-device-error-phone");
     await page.getByRole("textbox", { name: "Cable run to the closet" }).fill("18");

@@ -3,7 +3,7 @@ import { itemsOfSite, type SiteItem } from '../../survey/capture';
 import { demoSite, demoSiteInput } from '../../survey/demo-site';
 import { evaluateSite } from '../../survey/rules/evaluate-site';
 import { walkAdvice } from '../../survey/walk/advice';
-import { describeValue, fieldWord, heldFieldWords } from '../../survey/walk/describe';
+import { describeValue, fieldWord, heldFieldWords, heldNotice } from '../../survey/walk/describe';
 import { adviceWaitsFor, checkDeviceForm, deviceToForm, devicePatch, draftData, formToFields, parseNumber } from '../../survey/walk/device-form';
 import { nextFreeName } from '../../survey/walk/words';
 
@@ -49,6 +49,20 @@ describe('the device form', () => {
     expect(held.sort()).toEqual(['power', 'run']);
     expect(check.errors.volts).toEqual(['Adapter voltage must be a number']);
     expect(check.errors.runLength).toEqual(['Cable run cannot be negative (got -4 m)']);
+  });
+
+  it('counts the entries marked on screen, not the stored fields they belong to', () => {
+    const form = deviceToForm(device('cam-garage'), 'metric');
+    // Two bad adapter figures are one stored field (power) but two marked inputs.
+    const edited = { ...form, volts: 'twelve', amps: '-1', mount: 'ceiling' as const };
+    const { held, marked, check } = devicePatch(form, edited, 'metric');
+    expect(held).toEqual(['power']);
+    expect(Object.keys(check.errors).filter((k) => (check.errors[k as keyof typeof check.errors]?.length ?? 0) > 0).sort()).toEqual(['amps', 'volts']);
+    expect(marked).toEqual(['Adapter volts', 'Adapter amps']);
+    const notice = heldNotice(held, marked, true);
+    expect(notice.title).toBe('2 entries need fixing');
+    expect(notice.text).toBe('Fix Adapter volts and Adapter amps (marked in the form). Until then the power need (its figure and how it is printed are saved together) is not saved; what you typed is still here. The other fields are saved on this phone.');
+    expect(heldNotice(['run'], ['Cable run to the closet'], false).title).toBe('One entry needs fixing');
   });
 
   it('speaks feet as well when an imperial length is refused', () => {

@@ -430,7 +430,7 @@ function unassignedReason(
 ): UnassignedDevice {
   if (sum.eligible === 0) {
     return deferredField<UnassignedDevice, 'reason'>({ deviceId, code: 'no_port_of_type', reason: '' }, 'reason', () =>
-      `It needs a ${typeName(poeType)} port (Class ${poeClass}); no switch or injector in the plan has one. Add a ${typeName(poeType)} injector or switch.`);
+      `It needs an ${typeName(poeType)} port (Class ${poeClass}); no switch or injector in the plan has one. Add an ${typeName(poeType)} injector or switch.`);
   }
   if (sum.best === null) {
     const eligiblePorts = sum.eligiblePorts;

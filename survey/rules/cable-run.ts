@@ -312,7 +312,7 @@ export function addCableWarnings(bits: number, run: CableRun, o: CableRunOptions
   const channelM = f.channelM;
   if ((bits & W.channel_over_100m) !== 0) {
     into.push(cableWarning('channel_over_100m', 'error', deviceId, () =>
-      `The cable run is ${formatLength(lengthM, u)} (${formatLength(channelM, u)} with cords), longer than the ${formatLength(CHANNEL_LIMITS.channelMaxM, u)} a network cable may be. Put a small switch closer or find a shorter route.`));
+      `The cable run is ${formatLength(lengthM, u)}; with its patch cords the channel is ${formatLength(channelM, u)}, longer than the ${formatLength(CHANNEL_LIMITS.channelMaxM, u)} a network channel may be (at most ${formatLength(CHANNEL_LIMITS.permanentLinkMaxM, u)} of fixed cable plus cords). Put a small switch closer or find a shorter route.`));
   }
   if ((bits & W.link_over_90m) !== 0) {
     into.push(cableWarning('link_over_90m', 'warning', deviceId, () =>
@@ -343,7 +343,7 @@ export function addCableWarnings(bits: number, run: CableRun, o: CableRunOptions
 }
 
 /**
- * The run's reason when PoE gets through ("Over 55 m of Cat 6 … the device still gets …"),
+ * The run's reason when PoE gets through ("Over 55 m of Cat 6 … the device can draw the full …"),
  * else null. Worked out again from the run's own inputs, which the evaluation keeps unrounded.
  */
 export function deliveredReason(c: CableRunEvaluation, u: UnitSystem): string | null {
@@ -361,7 +361,7 @@ export function deliveredReason(c: CableRunEvaluation, u: UnitSystem): string | 
   const over = c.cordAllowanceM > 0
     ? `its ${formatLength(c.lengthM, u)} run and ${formatLength(c.cordAllowanceM, u)} of patch cords (${formatLength(channelM, u)} of ${category}, loop resistance ${formatOhms(loopOhm)})`
     : `its ${formatLength(c.lengthM, u)} run of ${category} (loop resistance ${formatOhms(loopOhm)})`;
-  return `Over ${over}, the cable loses at most ${formatWatts(atClass.lossW)}; the device still gets ${formatWatts(atClass.pdPowerW)} at ${formatVolts(atClass.pdVoltageV)} (it needs at least ${formatVolts(poe.pdVoltageMinV)}).`;
+  return `Over ${over}, the cable loses at most ${formatWatts(atClass.lossW)} of the port's ${formatWatts(cls.psePowerW)}, so the device can draw the full ${formatWatts(cls.pdMaxW)} of Class ${cls.poeClass}, at ${formatVolts(atClass.pdVoltageV)} or more (it needs at least ${formatVolts(poe.pdVoltageMinV)}).`;
 }
 
 /** Gauge used for a run (captured, or the category default). */

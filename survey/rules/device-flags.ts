@@ -41,7 +41,7 @@ export const W = Object.fromEntries(WARNING_CODES.map((c, i) => [c, 1 << i])) as
 
 export const WARNING_SEVERITY: Readonly<Record<DeviceWarningCode, Severity>> = {
   typical_figure: 'info',
-  need_above_class: 'warning',
+  need_above_class: 'error',
   need_above_standard: 'warning',
   passive_poe_device: 'warning',
   adapter_volts_mismatch: 'warning',

@@ -33,6 +33,8 @@ export type NoPoe =
 const NATIVE_POE_REASON = 'It takes power over its network cable (PoE), so it needs no outlet or adapter.';
 const NATIVE_POE_STAYS_UP = 'It must keep working in a power cut: it will, as long as its switch is on the battery backup.';
 const NATIVE_POE_CLOSER = 'A small PoE switch closer to it, or a shorter or thicker copper cable, would make it work.';
+/** A run longer than a channel: thicker cable does not help, only a shorter channel does. */
+const NATIVE_POE_TOO_LONG = 'A small PoE switch closer to it, or a shorter route, would make it work: no cable may be longer than a network channel, however thick.';
 const SPLITTER_STAYS_UP = 'It must keep working in a power cut, so it takes power over its network cable from the battery-backed switch rather than from an outlet.';
 const SPLITTER_OUTDOOR = 'It is outdoors: low-voltage power over its network cable avoids relying on an outdoor mains outlet.';
 const PASSIVE_STAYS_UP = 'To keep it up in a power cut, plug its injector into an outlet on the battery backup.';
@@ -108,7 +110,7 @@ export class DeviceReasons extends DeferredList<string> {
         into.push(`It needs ${formatWatts(f.needW)}, more than PoE can deliver to a device (${formatWatts(MAX_PD_POWER_W)}, 802.3bt Type 4), and it takes power only over its network cable.`);
         return;
       case 'poe_failed':
-        into.push(`It takes power only over its network cable, but ${this.whyNoPoe()}.`, NATIVE_POE_CLOSER);
+        into.push(`It takes power only over its network cable, but ${this.whyNoPoe()}.`, this.poeCable !== null && !this.poeCable.withinChannel ? NATIVE_POE_TOO_LONG : NATIVE_POE_CLOSER);
         return;
       case 'poe':
         into.push(NATIVE_POE_REASON, CLASS_PORT_REASON[this.poeClass!]);

@@ -1,5 +1,6 @@
 import { BARREL_SIZES, findBarrelSize, type BarrelSize } from '../standards/barrel-sizes';
 import type { Caution } from '../standards/cautions';
+import { CHANNEL_LIMITS } from '../standards/cabling';
 import { PLANNING } from '../standards/planning-defaults';
 import { classForPdPower, POE_CLASSES, type PoeClass } from '../standards/poe-classes';
 import { MAX_PD_POWER_W, POE_TYPES } from '../standards/poe-types';
@@ -64,8 +65,8 @@ const FINISHED_SURFACES = 'Walls and ceilings here are finished with no access a
 const POLARITY_UNKNOWN = 'The plug polarity was not recorded: read the polarity symbol on the device or its adapter before connecting a splitter (centre-positive is common, not universal).';
 const CANNOT_CARRY = 'its cable cannot carry enough power at the voltage PoE guarantees';
 const TOO_LONG: Readonly<Record<UnitSystem, string>> = {
-  metric: `its cable run is longer than the ${formatLength(100, 'metric')} a network cable may be`,
-  imperial: `its cable run is longer than the ${formatLength(100, 'imperial')} a network cable may be`,
+  metric: `its cable run with patch cords is longer than the ${formatLength(CHANNEL_LIMITS.channelMaxM, 'metric')} a network channel may be`,
+  imperial: `its cable run with patch cords is longer than the ${formatLength(CHANNEL_LIMITS.channelMaxM, 'imperial')} a network channel may be`,
 };
 /** The label of a native PoE device, by class (its port type is the least type serving the class). */
 const POE_LABEL: readonly string[] = POE_CLASSES.map((c) =>

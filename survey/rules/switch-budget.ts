@@ -157,7 +157,7 @@ export function evaluateSwitchWith(ctx: PlanContext, src: PoeSource): SwitchEval
       const deviceName = devices[i].name;
       warnings.push(deferredField<PlanWarning, 'message'>(
         { code: 'port_type_too_low', severity: 'error', sourceId: src.id, deviceId: devices[i].id, message: '' }, 'message', () =>
-          `"${deviceName}" needs a ${typeText(needType)} port, but "${srcName}" has ${typeText(srcType)} ports.`));
+          `"${deviceName}" needs an ${typeText(needType)} port, but "${srcName}" has ${typeText(srcType)} ports.`));
     }
   }
   if (overBudget) {

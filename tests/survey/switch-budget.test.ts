@@ -55,7 +55,7 @@ describe('assignPorts', () => {
     const big = dev({ id: 'big', input: { type: 'poe', class: 6 }, power: { by: 'watts', watts: 45 } });
     const noInj = assignPorts(siteWith({ powerSources: [switchInput()], devices: [big] }));
     expect(noInj.unassigned[0]).toMatchObject({ code: 'no_port_of_type' });
-    expect(noInj.unassigned[0].reason).toMatch(/needs a 802\.3bt Type 3 port/);
+    expect(noInj.unassigned[0].reason).toMatch(/needs an 802\.3bt Type 3 port/);
     const withInj = assignPorts(siteWith({ powerSources: [switchInput(), { kind: 'injector', id: 'inj', name: 'Injector', poeType: 3 }], devices: [big] }));
     expect(withInj.placements).toEqual([expect.objectContaining({ deviceId: 'big', sourceId: 'inj', port: 1, reservedW: 60 })]);
   });

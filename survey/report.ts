@@ -91,6 +91,15 @@ export function buildReportContent(input: ReportInput): ReportContent {
   const floors = new Map((site.floors ?? []).map((f) => [f.id, f.name]));
   const names = new Map(ev.devices.map((d) => [d.deviceId, d.name]));
   const by = ev.summary.byRecommendation;
+  // Each device's warnings as the plan has them: its own, then the plan's about it (no port left
+  // for it, a switch over budget shedding it, going down in a power cut), so the scope leaves none out.
+  const warningsOf = new Map<string, string[]>();
+  for (const w of ev.warnings) {
+    if (w.deviceId === undefined || w.severity === "info") continue;
+    const list = warningsOf.get(w.deviceId);
+    if (list === undefined) warningsOf.set(w.deviceId, [w.message]);
+    else if (!list.includes(w.message)) list.push(w.message);
+  }
   const runtimes = ev.outage.devices.filter((o) => o.mustStayUp && o.staysUp && o.minutes !== null).map((o) => o.minutes!);
   const rooms = (site.rooms ?? [])
     .map((r) => ({
@@ -106,7 +115,7 @@ export function buildReportContent(input: ReportInput): ReportContent {
           label: input.decisions[d.deviceId]?.label ?? d.label,
           recommendation: d.recommendation,
           reasons: [...d.reasons],
-          warnings: d.warnings.filter((w) => w.severity !== "info").map((w) => w.message),
+          warnings: warningsOf.get(d.deviceId) ?? [],
           mustStayUp: d.mustStayUp,
           decision: input.decisions[d.deviceId] ?? null,
         })),

@@ -2,7 +2,8 @@
 // stored as fractions; a field that cannot be read as typed is marked before anything is sent, and
 // every field the server refuses is marked with its message.
 import { useState } from "react";
-import { Pressable, StyleSheet, View } from "react-native";
+import { StyleSheet, View } from "react-native";
+import { CheckPress } from "@/components/ui/check-press";
 import { Button } from "@/components/ui/button";
 import { ChoiceChips } from "@/components/ui/choice-chips";
 import { TextField } from "@/components/ui/text-field";
@@ -186,9 +187,9 @@ export function BatteryForm({ siteId, plan, item, onDone }: { siteId: string; pl
           {sources.map((s) => {
             const on = feeds.includes(s.id);
             return (
-              <Pressable key={s.id} role="checkbox" aria-checked={on} aria-label={String(s.data.name)} onPress={() => setFeeds(on ? feeds.filter((f) => f !== s.id) : [...feeds, s.id])} style={[styles.chip, on && styles.chipOn]}>
+              <CheckPress key={s.id} checked={on} label={String(s.data.name)} onToggle={() => setFeeds(on ? feeds.filter((f) => f !== s.id) : [...feeds, s.id])} style={[styles.chip, on && styles.chipOn]}>
                 <AppText style={[styles.chipText, on && { color: colors.onDark }]}>{String(s.data.name)}</AppText>
-              </Pressable>
+              </CheckPress>
             );
           })}
         </View>

@@ -3,6 +3,7 @@
 // same fields. A placement over a budget or the ceiling asks for a confirmation with the reason.
 import { useMemo, useState } from "react";
 import { Pressable, StyleSheet, View } from "react-native";
+import { CheckPress } from "@/components/ui/check-press";
 import { Banner } from "@/components/ui/banner";
 import { Button } from "@/components/ui/button";
 import { ChoiceChips } from "@/components/ui/choice-chips";
@@ -15,7 +16,7 @@ import { DecisionInputSchema, POWER_METHOD_WORDS, type PowerMethod } from "@/sur
 import { check, type FieldErrors } from "@/survey/validation";
 import { ApiError } from "@/sync/http";
 
-const FORCEABLE = new Set(["over_budget", "over_ceiling", "poe_path_fails"]);
+const FORCEABLE = new Set(["over_budget", "over_ceiling", "poe_path_fails", "displaces_device"]);
 const POE = new Set<PowerMethod>(["poe", "poe_splitter"]);
 
 export function DecisionForm({ siteId, plan, device, onDone }: { siteId: string; plan: Plan; device: PlanDevice; onDone: () => void }) {
@@ -116,11 +117,12 @@ export function DecisionForm({ siteId, plan, device, onDone }: { siteId: string;
           <View role="radiogroup" aria-label="Port" style={styles.ports}>
             {[{ value: "any", label: "lowest free" }, ...Array.from({ length: portCount }, (_, i) => ({ value: String(i + 1), label: `${i + 1}` }))].map((p) => {
               const taken = p.value !== "any" ? occupant.get(Number(p.value)) : undefined;
+              const own = p.value !== "any" && device.placement?.sourceId === sourceId && device.placement.port === Number(p.value);
               const on = p.value === port;
               return (
-                <Pressable key={p.value} role="radio" aria-checked={on} aria-label={p.value === "any" ? "lowest free port" : `Port ${p.value}${taken ? `, used by ${taken}` : ", free"}`} onPress={() => setPort(p.value)} style={[styles.port, on && styles.portOn, taken ? styles.portTaken : null, err("port") && on ? styles.portBad : null]}>
+                <Pressable key={p.value} role="radio" aria-checked={on} aria-label={p.value === "any" ? "lowest free port" : `Port ${p.value}${taken ? `, used by ${taken}` : own ? ", its port now" : ", free"}`} onPress={() => setPort(p.value)} style={[styles.port, on && styles.portOn, taken ? styles.portTaken : null, err("port") && on ? styles.portBad : null]}>
                   <AppText style={[styles.portText, on && { color: colors.onDark }]}>{p.label}</AppText>
-                  {taken ? <AppText numberOfLines={1} style={[styles.portWho, on && { color: colors.onDarkMuted }]}>{taken}</AppText> : null}
+                  {taken ? <AppText numberOfLines={1} style={[styles.portWho, on && { color: colors.onDarkMuted }]}>{taken}</AppText> : own ? <AppText numberOfLines={1} style={[styles.portWho, on && { color: colors.onDarkMuted }]}>now</AppText> : null}
                 </Pressable>
               );
             })}
@@ -145,10 +147,10 @@ export function DecisionForm({ siteId, plan, device, onDone }: { siteId: string;
         <View style={{ gap: space.sm }}>
           <Banner tone={FORCEABLE.has(refusal.code) ? "warn" : "danger"} title="Not saved">{refusal.message}</Banner>
           {FORCEABLE.has(refusal.code) ? (
-            <Pressable role="checkbox" aria-checked={force} aria-label="Place it anyway; the reason says why" onPress={() => setForce(!force)} style={styles.check}>
+            <CheckPress checked={force} label="Place it anyway; the reason says why" onToggle={() => setForce(!force)} style={styles.check}>
               <View style={[styles.box, force && styles.boxOn]}>{force ? <AppText style={{ color: colors.onDark, fontFamily: fonts.bold, lineHeight: 18 }}>✓</AppText> : null}</View>
               <AppText>Place it anyway — the reason above says why.</AppText>
-            </Pressable>
+            </CheckPress>
           ) : null}
         </View>
       ) : null}

@@ -151,7 +151,7 @@ function historyWords(h: PlanHistoryEntry): string {
     case "decided": {
       const method = POWER_METHOD_WORDS[(a?.method as PowerMethod) ?? "poe"];
       const extra = [a?.poeClass != null ? `Class ${String(a.poeClass)}` : null, a?.sourceId ? `on ${String(a.sourceId)}${a.port ? ` port ${String(a.port)}` : ""}` : null].filter(Boolean).join(", ");
-      return `Decided: ${method}${extra ? ` (${extra})` : ""}${h.forced ? " — placed over the limit on purpose" : ""}`;
+      return `Decided: ${method}${extra ? ` (${extra})` : ""}${h.forced ? " — saved despite the plan's warning, on purpose" : ""}`;
     }
     case "cleared":
       return `Back to the rules' advice (was ${POWER_METHOD_WORDS[(b?.method as PowerMethod) ?? "poe"]})`;

@@ -1,5 +1,6 @@
 import { useState } from "react";
-import { Linking, Pressable, StyleSheet, View } from "react-native";
+import { Linking, StyleSheet, View } from "react-native";
+import { CheckPress } from "@/components/ui/check-press";
 import { when } from "@/components/ui/format";
 import { Banner } from "@/components/ui/banner";
 import { Button } from "@/components/ui/button";
@@ -17,6 +18,7 @@ export function SignOffCard({ view, isClient }: { view: ReportView; isClient: bo
   const sign = useSignOff(view.report.id);
   const [name, setName] = useState("");
   const [confirmed, setConfirmed] = useState(false);
+  const [despite, setDespite] = useState(false);
   const [fields, setFields] = useState<Record<string, string[] | undefined>>({});
 
   if (view.signoff) {
@@ -48,14 +50,20 @@ export function SignOffCard({ view, isClient }: { view: ReportView; isClient: bo
   }
   if (!view.report.latest) return <Banner tone="warn">A newer version of this scope was published. Read and sign that one.</Banner>;
 
+  // Changes the homeowner asked for on this version stay open until a new version answers them.
+  const asked = view.comments.filter((c) => c.changeRequest);
+  const names = new Map(view.content.rooms.flatMap((r) => r.devices).map((d) => [d.id, d.name]));
+  const askedAbout = [...new Set(asked.map((c) => (c.itemRef === "general" ? "the whole scope" : names.get(c.itemRef) ?? c.itemRef)))];
+
   async function submit() {
     const next: Record<string, string[]> = {};
     if (name.trim().length < 2) next.typedName = ["Type your full name."];
     if (!confirmed) next.confirm = ["Tick the box to confirm you agree to this scope."];
+    if (asked.length > 0 && !despite) next.despiteChangeRequests = [`Tick to sign version ${view.report.version} as it is, without the changes you asked for — or wait for your installer's new version.`];
     setFields(next);
     if (Object.keys(next).length) return;
     try {
-      const result = await sign.mutateAsync({ typedName: name.trim(), confirm: true });
+      const result = await sign.mutateAsync({ typedName: name.trim(), confirm: true, ...(asked.length > 0 ? { despiteChangeRequests: true } : {}) });
       if (result.deposit?.checkoutUrl) await Linking.openURL(result.deposit.checkoutUrl);
     } catch (err) {
       if (err instanceof ApiError) setFields(err.fields);
@@ -68,11 +76,23 @@ export function SignOffCard({ view, isClient }: { view: ReportView; isClient: bo
       <AppText muted>{`Signing records your name, the time, this device's address and the fingerprint of version ${view.report.version}. It cannot be changed afterwards; ask for changes first if anything is not right.`}</AppText>
       {sign.error && !Object.keys(fields).length ? <Banner tone="danger">{sign.error.message}</Banner> : null}
       <TextField label="Your full name" value={name} onChangeText={setName} autoComplete="name" errors={fields.typedName} />
-      <Pressable role="checkbox" aria-checked={confirmed} aria-label="I have read this scope and agree to it" onPress={() => setConfirmed(!confirmed)} style={styles.check}>
+      <CheckPress checked={confirmed} label="I have read this scope and agree to it" onToggle={() => setConfirmed(!confirmed)} style={styles.check}>
         <View style={[styles.box, confirmed && styles.boxOn, fields.confirm?.length ? styles.boxInvalid : null]}>{confirmed ? <AppText style={styles.tick}>✓</AppText> : null}</View>
         <AppText style={{ flex: 1 }}>I have read this scope and agree to it.</AppText>
-      </Pressable>
+      </CheckPress>
       {fields.confirm?.length ? <AppText role="alert" style={styles.error}>{fields.confirm.join(" ")}</AppText> : null}
+      {asked.length > 0 ? (
+        <View style={{ gap: space.sm }}>
+          <Banner tone="warn" title={asked.length === 1 ? "You asked for a change" : `You asked for ${asked.length} changes`}>
+            {`About ${askedAbout.join(", ")}. Your installer answers with a new version of the scope; signing this one agrees to it as it is, without ${asked.length === 1 ? "that change" : "those changes"}.`}
+          </Banner>
+          <CheckPress checked={despite} label="Sign this version as it is, without the changes I asked for" onToggle={() => setDespite(!despite)} style={styles.check}>
+            <View style={[styles.box, despite && styles.boxOn, fields.despiteChangeRequests?.length ? styles.boxInvalid : null]}>{despite ? <AppText style={styles.tick}>✓</AppText> : null}</View>
+            <AppText style={{ flex: 1 }}>Sign this version as it is, without the changes I asked for.</AppText>
+          </CheckPress>
+          {fields.despiteChangeRequests?.length ? <AppText role="alert" style={styles.error}>{fields.despiteChangeRequests.join(" ")}</AppText> : null}
+        </View>
+      ) : null}
       <Button label="Sign off" busy={sign.isPending} onPress={submit} />
     </Card>
   );

@@ -1,5 +1,6 @@
 import { useState } from "react";
-import { Pressable, StyleSheet, View } from "react-native";
+import { StyleSheet, View } from "react-native";
+import { CheckPress } from "@/components/ui/check-press";
 import * as v from "valibot";
 import { fieldErrors } from "@/survey/validation";
 import { Banner } from "@/components/ui/banner";
@@ -55,9 +56,9 @@ export function SitePeoplePanel({ site }: { site: SiteSummary }) {
         {surveyors.map((s) => {
           const on = site.surveyorIds.includes(s.id);
           return (
-            <Pressable key={s.id} role="checkbox" aria-checked={on} aria-label={s.name ?? s.email} onPress={() => toggle(s.id)} style={StyleSheet.flatten([styles.chip, on && styles.chipOn])}>
+            <CheckPress key={s.id} checked={on} label={s.name ?? s.email} onToggle={() => toggle(s.id)} style={StyleSheet.flatten([styles.chip, on && styles.chipOn])}>
               <AppText style={[styles.chipText, on && styles.chipTextOn]}>{`${on ? "✓ " : ""}${s.name ?? s.email}`}</AppText>
-            </Pressable>
+            </CheckPress>
           );
         })}
       </View>

@@ -61,6 +61,6 @@ export const useAddComment = (reportId: string) =>
   useReportMutation((input: { itemRef: string; body: string; changeRequest: boolean }) => apiFetch(`/api/reports/${reportId}/comments`, { body: input }));
 
 export const useSignOff = (reportId: string) =>
-  useReportMutation((input: { typedName: string; confirm: boolean }) =>
+  useReportMutation((input: { typedName: string; confirm: boolean; despiteChangeRequests?: boolean }) =>
     apiFetch<{ signoff: { signedAt: string }; deposit: { checkoutUrl: string | null } | null }>(`/api/reports/${reportId}/signoff`, { body: input }),
   );

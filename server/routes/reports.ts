@@ -20,6 +20,8 @@ const SignOffSchema = v.pipe(
   v.object({
     typedName: v.pipe(v.string("Type your full name."), v.trim(), v.minLength(2, "Type your full name."), v.maxLength(120)),
     confirm: v.optional(v.boolean("Confirm with true or false."), false),
+    /** The homeowner asked for changes on this version and signs it as it is all the same. */
+    despiteChangeRequests: v.optional(v.boolean("Say with true or false whether you sign without the changes you asked for."), false),
   }),
   v.forward(v.check((i) => i.confirm === true, "Tick the box to confirm you agree to this scope."), ["confirm"]),
 );

@@ -10,6 +10,7 @@ import { applyDecision, type DecisionInput } from "../../survey/decisions";
 import { portCount, type PowerSource } from "../../survey/model/power-source";
 import type { Site } from "../../survey/model/site";
 import { evaluateDevice } from "../../survey/rules/recommend-device";
+import type { SiteEvaluation } from "../../survey/rules/evaluate-site";
 import type { SwitchEvaluation } from "../../survey/rules/switch-budget";
 import { formatPercent, formatWatts, roundTo } from "../../survey/units";
 import type { SignedInActor } from "../auth/actor";
@@ -128,6 +129,15 @@ export async function decideDevice(db: Db, actor: SignedInActor, site: SiteWithA
       if (!input.force) throw new HttpError(409, "poe_path_fails", `PoE cannot power it over this run: ${outcome.poeProblem}. Choose another method, or confirm with "force" and say why in the reason.`, { method: [`PoE does not work here: ${outcome.poeProblem}.`] });
       forced = true;
     }
+    // A device that had a port before and none after: the decision took it. Say so, by name.
+    const displaced = displacedBy(before, after, deviceId);
+    if (displaced.length) {
+      if (!input.force) {
+        const message = displaced.map((d) => `"${d.name}" would lose its port: ${d.reason}`).join(" ");
+        throw new HttpError(409, "displaces_device", `${message} Choose another method, port or source, or confirm with "force" and say why in the reason.`, { sourceId: [message] });
+      }
+      forced = true;
+    }
     const over = newlyOver(before.switches, after.switches);
     if (over.length) {
       if (!input.force) {
@@ -164,6 +174,15 @@ export async function decideDevice(db: Db, actor: SignedInActor, site: SiteWithA
       await setAutoPlaced(tx, actor, site.id, (ids) => [...new Set([...ids.filter((id) => id !== deviceId && id !== bumped), ...held.map((p) => p.deviceId)])]);
     }
   });
+}
+
+/** The devices that had a port in `before` and have none in `after`, other than the one decided. */
+function displacedBy(before: SiteEvaluation, after: SiteEvaluation, deviceId: string): { id: string; name: string; reason: string }[] {
+  const placed = new Set(before.assignment.placements.map((p) => p.deviceId));
+  const names = new Map(after.devices.map((d) => [d.deviceId, d.name]));
+  return after.assignment.unassigned
+    .filter((u) => u.deviceId !== deviceId && placed.has(u.deviceId))
+    .map((u) => ({ id: u.deviceId, name: names.get(u.deviceId) ?? u.deviceId, reason: u.reason }));
 }
 
 /**

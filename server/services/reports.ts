@@ -148,7 +148,9 @@ export async function addComment(ctx: AppContext, actor: Actor, site: SiteWithAc
   return { id };
 }
 
-export async function signOff(ctx: AppContext, actor: Actor, site: SiteWithAccess, reportId: string, input: { typedName: string }, from: { ip: string; userAgent: string }) {
+export async function signOff(
+  ctx: AppContext, actor: Actor, site: SiteWithAccess, reportId: string, input: { typedName: string; despiteChangeRequests?: boolean }, from: { ip: string; userAgent: string },
+) {
   const { db } = ctx;
   const report = await loadReport(db, reportId);
   if (!report || report.siteId !== site.id) throw notFound("That report");
@@ -158,6 +160,18 @@ export async function signOff(ctx: AppContext, actor: Actor, site: SiteWithAcces
   const normal = (s: string) => s.trim().replace(/\s+/g, " ").toLowerCase();
   if (me?.name && normal(me.name) !== normal(input.typedName)) {
     throw new HttpError(400, "invalid_input", `Type your full name as it is on your account (${me.name}) to sign.`, { typedName: [`Type ${me.name}.`] });
+  }
+  // Changes asked on this version are still open (a new version answers them): signing it as it
+  // is must be said in so many words, so a signature never silently drops a request.
+  const asked = await db
+    .select({ itemRef: reportComments.itemRef })
+    .from(reportComments)
+    .where(and(eq(reportComments.reportId, report.id), eq(reportComments.changeRequest, true)));
+  if (asked.length > 0 && !input.despiteChangeRequests) {
+    const n = asked.length;
+    throw new HttpError(409, "changes_asked", `You asked for ${n === 1 ? "a change" : `${n} changes`} on version ${report.version}, and your installer has not answered with a new version yet. Wait for it, or confirm that you sign this version as it is, without ${n === 1 ? "that change" : "those changes"}.`, {
+      despiteChangeRequests: [`Tick to sign version ${report.version} as it is, without the ${n === 1 ? "change" : "changes"} you asked for.`],
+    });
   }
   const id = randomUUID();
   const done = await db.transaction(async (tx) => {

@@ -103,8 +103,22 @@ describe("a decision changes the evaluation and is kept", () => {
   it("a splitter for the garage camera: it counts as PoE, takes a port and shows as a designer decision", async () => {
     const before = await plan();
     expect(device(before, "cam-garage").recommendation).toBe("existing_outlet");
-    const res = await decide(tomas, "cam-garage", { method: "poe_splitter", reason: "The outlet there is switched by the light; keep the camera on the cable." }).expect(200);
+    // The closet switch's ports are all used: taking one for the camera leaves another device without
+    // one. That is refused by name, and saves nothing, unless forced with a reason.
+    const placedBefore = new Set(before.devices.filter((d) => d.placement !== null).map((d) => d.deviceId));
+    const version = await teamVersion();
+    const refused = await decide(tomas, "cam-garage", { method: "poe_splitter", reason: "The outlet there is switched by the light; keep the camera on the cable." }).expect(409);
+    expect(refused.body.error.code).toBe("displaces_device");
+    expect(refused.body.error.message).toMatch(/^"[^"]+" would lose its port: .*Choose another method, port or source, or confirm with "force"/);
+    expect(await teamVersion()).toBe(version);
+    expect(device(await plan(), "cam-garage").decision).toBeNull();
+    const res = await decide(tomas, "cam-garage", { method: "poe_splitter", reason: "The outlet there is switched by the light; keep the camera on the cable.", force: true }).expect(200);
     const p: PlanView = res.body.plan;
+    const named = /^"([^"]+)"/.exec(refused.body.error.message)![1];
+    const lost = p.devices.find((d) => d.name === named)!;
+    expect(placedBefore.has(lost.deviceId)).toBe(true);
+    expect(lost.placement).toBeNull();
+    expect(device(p, "cam-garage").decision).toMatchObject({ forced: true });
     const cam = device(p, "cam-garage");
     expect(cam.recommendation).toBe("poe_splitter");
     expect(cam.label).toBe("PoE + splitter (12 V · 1 A · 5.5×2.1 mm, centre-positive)");

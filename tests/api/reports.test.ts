@@ -210,6 +210,29 @@ describe("the plan after its scope was signed", () => {
   });
 });
 
+describe("signing while changes are asked", () => {
+  it("a version the homeowner asked changes on is signed only when they say they sign it as it is", async () => {
+    const latest = await publish();
+    const report = await client.get(`/api/reports/${latest.id}`).expect(200);
+    const device = report.body.content.rooms[0].devices[0];
+    await client.post(`/api/reports/${latest.id}/comments`).send({ itemRef: device.id, body: "Move it to the other wall, please.", changeRequest: true }).expect(201);
+
+    const refused = await client.post(`/api/reports/${latest.id}/signoff`).send({ typedName: "June Okonkwo-Lindqvist", confirm: true }).expect(409);
+    expect(refused.body.error.code).toBe("changes_asked");
+    expect(refused.body.error.message).toBe(`You asked for a change on version ${latest.version}, and your installer has not answered with a new version yet. Wait for it, or confirm that you sign this version as it is, without that change.`);
+    expect(refused.body.error.fields.despiteChangeRequests).toEqual([`Tick to sign version ${latest.version} as it is, without the change you asked for.`]);
+    expect(await server.ctx.db.select().from(signoffs).where(eq(signoffs.reportId, latest.id))).toHaveLength(0);
+
+    const wrongType = await client.post(`/api/reports/${latest.id}/signoff`).send({ typedName: "June Okonkwo-Lindqvist", confirm: true, despiteChangeRequests: "yes" }).expect(400);
+    expect(wrongType.body.error.fields.despiteChangeRequests).toBeDefined();
+
+    await client.post(`/api/reports/${latest.id}/signoff`).send({ typedName: "June Okonkwo-Lindqvist", confirm: true, despiteChangeRequests: true }).expect(201);
+    // A new version answers the request: it is signed with no such confirmation.
+    const next = await publish();
+    await client.post(`/api/reports/${next.id}/signoff`).send({ typedName: "June Okonkwo-Lindqvist", confirm: true }).expect(201);
+  });
+});
+
 describe("deposit", () => {
   it("signing leads to a checkout with the provider's SDK; the signed webhook marks it paid; forged and replayed webhooks are refused; paid survives a restart", async () => {
     await admin.put("/api/team/deposit").send({ enabled: true, amountCents: 25_000, currency: "usd" }).expect(200);

@@ -31,15 +31,28 @@ describe("the homeowner signs off on a phone", () => {
     const content = (await designer.get(`/api/reports/${scope.id}`).expect(200)).body.content;
     const commentedId: string = content.rooms.flatMap((r: { devices: { id: string; name: string }[] }) => r.devices).find((d: { name: string }) => d.name === deviceName).id;
     await commentButton.click();
+    await page.getByRole("radio", { name: "Ask for a change" }).click();
     await page.getByRole("textbox", { name: `Your comment on ${deviceName}` }).fill("Could this go a little higher on the wall?");
-    await page.getByRole("button", { name: "Send comment" }).click();
+    await page.getByRole("button", { name: "Ask for this change" }).click();
     await page.getByText("Could this go a little higher on the wall?").waitFor();
 
-    // Signing without the confirmation marks the box; with it, the sign-off is recorded.
+    // Signing without the confirmations marks both boxes: agreeing to the scope, and signing it
+    // without the change just asked for. The keyboard ticks them with Space, as any checkbox.
+    await page.getByText("You asked for a change", { exact: true }).waitFor();
+    await page.getByText(new RegExp(`^About ${deviceName}\\. Your installer answers with a new version`)).waitFor();
     await page.getByRole("textbox", { name: "Your full name" }).fill("June Okonkwo-Lindqvist");
     await page.getByRole("button", { name: "Sign off" }).click();
     await page.getByText("Tick the box to confirm you agree to this scope.").waitFor();
-    await page.getByRole("checkbox", { name: "I have read this scope and agree to it" }).click();
+    await page.getByText(/^Tick to sign version \d+ as it is, without the changes you asked for/).waitFor();
+    await screenshot(page, "sign-off-changes-asked-phone");
+    const agree = page.getByRole("checkbox", { name: "I have read this scope and agree to it" });
+    await agree.focus();
+    await page.keyboard.press("Space");
+    expect(await agree.getAttribute("aria-checked")).toBe("true");
+    const despite = page.getByRole("checkbox", { name: "Sign this version as it is, without the changes I asked for" });
+    await despite.focus();
+    await page.keyboard.press("Space");
+    expect(await despite.getAttribute("aria-checked")).toBe("true");
     await page.getByRole("button", { name: "Sign off" }).click();
     await page.getByText(/^Signed by June Okonkwo-Lindqvist on /).waitFor();
     await screenshot(page, "signed-phone");
@@ -83,7 +96,7 @@ describe("the homeowner signs off on a phone", () => {
     await screenshot(dp, "plan-changed-since-signed-desktop");
     // The homeowner's comment shows on the device's row of the plan, where the designer works.
     const commented = dp.getByTestId(`device-${commentedId}`);
-    await commented.getByText("homeowner commented", { exact: true }).waitFor();
+    await commented.getByText("homeowner asked for changes", { exact: true }).waitFor();
     await commented.getByLabel(`What the homeowner wrote about ${deviceName}`).getByText(/Could this go a little higher on the wall\?/).waitFor();
     await dp.goto(`${suite.server.url}/sites/${DEMO_SITE_ID}/report`);
     await dp.getByText("Changed since the homeowner signed version 1").waitFor();

@@ -55,3 +55,28 @@ describe('scopeDrift', () => {
     expect(scopeDriftWords(drift, money)).toMatch(/^The .*cable runs/);
   });
 });
+
+describe('the scope lists every problem the plan has with a device', () => {
+  it('a device left without a port says so under its own name, not only in the plan', () => {
+    // Only the closet switch: take its ports away until a PoE device is left without one.
+    const sources = (demoSiteInput.powerSources ?? []).map((s) => (s.kind === 'poe_switch' ? { ...s, poePorts: 2 } : s));
+    const parsed = parseSite({ ...demoSiteInput, powerSources: sources });
+    if (!parsed.ok) throw new Error(parsed.errors[0].message);
+    const ev = evaluateSite(parsed.value);
+    expect(ev.assignment.unassigned.length).toBeGreaterThan(0);
+    const scope = buildReportContent({
+      site: { ...demoSiteInput, powerSources: sources }, team: 'Crew', version: 1, publishedAt: '2026-11-30T09:00:00.000Z', evaluation: ev, decisions: {},
+      materials: { lines: [], total: 0, currency: 'USD', unpricedCount: 0 },
+    });
+    const devices = scope.rooms.flatMap((r) => r.devices);
+    for (const u of ev.assignment.unassigned) {
+      const d = devices.find((x) => x.id === u.deviceId)!;
+      expect(d.warnings.some((w) => w.includes(u.reason))).toBe(true);
+    }
+    // A device's own warnings are still there, each once.
+    for (const e of ev.devices) {
+      const d = devices.find((x) => x.id === e.deviceId)!;
+      for (const w of e.warnings.filter((x) => x.severity !== 'info')) expect(d.warnings.filter((m) => m === w.message)).toHaveLength(1);
+    }
+  });
+});

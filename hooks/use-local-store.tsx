@@ -1,6 +1,7 @@
 // The phone's offline store and its sync runner, for the signed-in team member, and the hooks that
 // read and change it. Queries read the local store, so they run with network mode "always".
-import { onlineManager, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { isOnlineNow } from "./use-online";
 import { createContext, useContext, useEffect, useMemo, useState, useSyncExternalStore, type ReactNode } from "react";
 import type { ItemKind } from "@/survey/capture";
 import { openUserDatabase } from "@/sync/expo-sqlite-db";
@@ -103,8 +104,7 @@ export function LocalStoreProvider({ userId, children, fallback }: { userId: str
           store,
           transport: httpTransport,
           upload: uploadPhoto,
-          // Either says offline: the browser's own flag changes even when no "offline" event arrives.
-          isOnline: () => onlineManager.isOnline() && (typeof navigator === "undefined" || navigator.onLine !== false),
+          isOnline: isOnlineNow,
           onSynced: () => void qc.invalidateQueries({ queryKey: localKeys.root }),
         });
         opening.started(runner);

@@ -21,6 +21,7 @@ import { OutageChart } from "./outage-chart";
 type Editing = { what: "source"; id?: string; kind?: "poe_switch" | "injector" | "outlet" } | { what: "battery"; id?: string } | null;
 
 export function ClosetPanel({ siteId, plan, wide, editable }: { siteId: string; plan: Plan; wide: boolean; editable: boolean }) {
+  const byHand = new Set(plan.devices.filter((d) => d.placement?.pinned && !d.placement.auto).map((d) => d.deviceId));
   const [editing, setEditing] = useState<Editing>(null);
   const [moving, setMoving] = useState<string | null>(null);
   const assign = useAssignPorts(siteId);
@@ -123,7 +124,7 @@ export function ClosetPanel({ siteId, plan, wide, editable }: { siteId: string; 
                   {sw.suggestions.map((t, i) => <AppText key={i} variant="caption" muted>{t}</AppText>)}
                   <AppText variant="caption" muted>Wall draw about {formatNumber(sw.wallDrawW, 1)} W.</AppText>
                 </View>
-                <PortTable sw={sw} editable={editable} onMove={(id) => setMoving(moving === id ? null : id)} moving={moving} narrow={!wide} />
+                <PortTable sw={sw} byHand={byHand} editable={editable} onMove={(id) => setMoving(moving === id ? null : id)} moving={moving} narrow={!wide} />
               </View>
             ) : data.kind === "outlet" ? (
               <AppText variant="caption">{outletDevices(s.id).map((d) => d.name).join(", ") || "Nothing is pinned to it."}</AppText>
@@ -193,7 +194,8 @@ export function ClosetPanel({ siteId, plan, wide, editable }: { siteId: string; 
   );
 }
 
-function PortTable({ sw, editable, onMove, moving, narrow }: { sw: PlanSwitch; editable: boolean; onMove: (deviceId: string) => void; moving: string | null; narrow: boolean }) {
+/** `byHand`: the devices placed on their port by hand (the rules may still move the others, including those they hold). */
+function PortTable({ sw, byHand, editable, onMove, moving, narrow }: { sw: PlanSwitch; byHand: ReadonlySet<string>; editable: boolean; onMove: (deviceId: string) => void; moving: string | null; narrow: boolean }) {
   const byPort = new Map(sw.rows.map((r) => [r.port, r]));
   // On a phone the figures take narrower columns and the device's name gives way (it is cut with "…").
   const num = [styles.num, narrow && styles.numNarrow];
@@ -213,7 +215,7 @@ function PortTable({ sw, editable, onMove, moving, narrow }: { sw: PlanSwitch; e
         return (
           <View key={p} style={styles.tr} role="row" aria-label={`Port ${p}${r ? `: ${r.deviceName}` : ": free"}`}>
             <AppText style={[styles.td, port]}>{p}</AppText>
-            <AppText style={[styles.td, styles.device, { fontFamily: r?.critical ? fonts.bold : fonts.regular }]} numberOfLines={2}>{r ? `${r.pinned ? "• " : ""}${r.deviceName}` : "free"}</AppText>
+            <AppText style={[styles.td, styles.device, { fontFamily: r?.critical ? fonts.bold : fonts.regular }]} numberOfLines={2}>{r ? `${byHand.has(r.deviceId) ? "• " : ""}${r.deviceName}` : "free"}</AppText>
             <AppText style={[styles.td, num]}>{r ? r.poeClass : ""}</AppText>
             <AppText style={[styles.td, num]}>{r ? `${formatNumber(r.reservedW, 1)} W` : ""}</AppText>
             <AppText style={[styles.td, num]}>{r ? `${formatNumber(r.expectedPseW, 1)} W` : ""}</AppText>
@@ -225,7 +227,7 @@ function PortTable({ sw, editable, onMove, moving, narrow }: { sw: PlanSwitch; e
           </View>
         );
       })}
-      <AppText variant="caption" muted style={{ padding: space.xs }}>Bold: must stay up (shed last). • before a name: held on that port.</AppText>
+      <AppText variant="caption" muted style={{ padding: space.xs }}>Bold: must stay up (shed last). • before a name: placed on that port by hand (the rules leave it there).</AppText>
     </View>
   );
 }

@@ -60,7 +60,7 @@ function DeviceRow({ siteId, plan, device: d, wide, editable, open, onToggle }: 
   const history = plan.history[d.deviceId] ?? [];
   const runWarnings = d.warnings.filter((w) => RUN_LENGTH_CODES.has(w.code));
   const otherWarnings = d.warnings.filter((w) => !RUN_LENGTH_CODES.has(w.code) && w.code !== "designer_decision");
-  const placement = d.placement ? `${d.placement.sourceName} · port ${d.placement.port}${d.placement.pinned ? (d.placement.auto ? " (assigned)" : " (pinned)") : ""}` : d.unassigned ? "no port yet" : null;
+  const placement = d.placement ? `${d.placement.sourceName} · port ${d.placement.port}${d.placement.pinned ? (d.placement.auto ? " (assigned)" : " (placed by hand)") : ""}` : d.unassigned ? "no port yet" : null;
   return (
     <View role="listitem" aria-label={d.name} style={styles.device} testID={`device-${d.deviceId}`}>
       <View style={[styles.cols, !wide && styles.colsPhone]}>

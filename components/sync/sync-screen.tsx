@@ -13,6 +13,7 @@ import { myConflicts, shownPhase, SYNC_PHASE_TONES, SYNC_PHASE_WORDS, waitingWor
 import { colors, fonts, radius, space } from "@/constants/theme";
 import { useMe } from "@/hooks/queries/me";
 import { useSiteItems, useLocalSites, useSyncNotices, useSyncState } from "@/hooks/use-local-store";
+import { useOnline } from "@/hooks/use-online";
 import { describeValue, fieldWord } from "@/survey/walk/describe";
 import type { ConflictNote, Rejection } from "@/sync/protocol";
 
@@ -49,6 +50,7 @@ function TeamSync({ userId }: { userId: string }) {
   const tone = SYNC_PHASE_TONES[phase];
   const waiting = waitingWords(sync.pending, sync.photosWaiting);
   const now = useNow(30_000);
+  const online = useOnline();
   const rejections = notices.data?.rejections ?? [];
   const conflicts = conflictsMine;
 
@@ -62,6 +64,7 @@ function TeamSync({ userId }: { userId: string }) {
           </AppText>
         </View>
         <AppText>{PHASE_EXPLAINED[phase]}</AppText>
+        {!online ? <Banner tone="warn" title="No connection">This phone is offline: what you capture is kept here and sent by itself when the connection is back.</Banner> : null}
         {sync.problem ? <Banner tone={sync.phase === "needs-you" ? "danger" : "warn"}>{sync.problem}</Banner> : null}
         <View style={styles.facts}>
           <Fact label="Changes to send" value={String(sync.pending)} />

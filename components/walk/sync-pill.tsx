@@ -4,6 +4,7 @@ import { AppText } from "@/components/ui/text";
 import { colors, fonts, minTouch, radius, space } from "@/constants/theme";
 import { useMe } from "@/hooks/queries/me";
 import { useSyncNotices, useSyncState } from "@/hooks/use-local-store";
+import { useOnline } from "@/hooks/use-online";
 import type { ConflictNote } from "@/sync/protocol";
 import type { SyncPhase } from "@/sync/sync-runner";
 
@@ -58,7 +59,9 @@ export function SyncPill() {
   const phase = shownPhase(sync, notices);
   const tone = SYNC_PHASE_TONES[phase];
   const waiting = [waitingWords(sync.pending, sync.photosWaiting), notices ? (notices === 1 ? "1 notice to read" : `${notices} notices to read`) : null].filter(Boolean).join(", ") || null;
-  const words = SYNC_PHASE_WORDS[phase];
+  const online = useOnline();
+  // Offline, nothing can be "up to date" or "sending": say so; what waits is still counted.
+  const words = !online && (phase === "up-to-date" || phase === "sending") ? "offline" : !online ? `${SYNC_PHASE_WORDS[phase]} · offline` : SYNC_PHASE_WORDS[phase];
   const label = `Sync: ${words}${waiting ? `, ${waiting}` : ""}`;
   return (
     <Link href="/sync" asChild>

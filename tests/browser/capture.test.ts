@@ -181,6 +181,8 @@ describe("capturing a walk on the phone", () => {
     await openDemoWalk(page);
     await page.getByRole("link", { name: /^Sync: up to date/ }).waitFor();
     await context.setOffline(true);
+    // The pill says the phone is offline at once, before anything waits to be sent.
+    await page.getByRole("link", { name: "Sync: offline" }).waitFor();
     await page.getByRole("button", { name: "Add room to Upper floor" }).click();
     await page.getByRole("group", { name: "Add a room to Upper floor" }).getByRole("textbox", { name: "Or a room by name" }).fill("Sewing room");
     await page.getByRole("button", { name: "Add this room" }).click();
@@ -194,12 +196,14 @@ describe("capturing a walk on the phone", () => {
     await thumb.waitFor();
     await expect.poll(() => thumb.evaluate((img) => (img as HTMLImageElement).complete && (img as HTMLImageElement).naturalWidth)).toBe(1);
     await page.getByText("on this phone", { exact: true }).waitFor();
-    await page.getByRole("link", { name: "Sync: saved on this phone, 1 change and 1 photo to send" }).click();
+    await page.getByRole("link", { name: "Sync: saved on this phone · offline, 1 change and 1 photo to send" }).click();
     await page.getByRole("heading", { name: "Sync" }).waitFor();
+    await page.getByText(/^This phone is offline: what you capture is kept here and sent by itself/).waitFor();
     await page.getByLabel("Changes to send: 1").waitFor();
     await page.getByLabel("Photos waiting: 1").waitFor();
     await screenshot(page, "capture-sync-offline-phone");
     await context.setOffline(false);
+    await page.getByText(/^This phone is offline/).waitFor({ state: "detached" });
     await page.getByRole("button", { name: "Send now" }).click();
     await page.getByLabel("Changes to send: 0").waitFor();
     await page.getByLabel("Photos waiting: 0").waitFor();
@@ -232,7 +236,7 @@ describe("capturing a walk on the phone", () => {
     await a.setOffline(true);
     await pa.getByRole("textbox", { name: "Nearest outlet distance" }).fill("0.8");
     await pa.getByRole("button", { name: "Save device" }).click();
-    await pa.getByRole("link", { name: "Sync: saved on this phone, 1 change to send" }).waitFor();
+    await pa.getByRole("link", { name: "Sync: saved on this phone · offline, 1 change to send" }).waitFor();
 
     // …while the designer sets the same field from the office.
     const b = await suite.browser.newContext({ viewport: PHONE });

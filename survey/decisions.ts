@@ -350,7 +350,7 @@ export function applyDecision(device: Device, base: DeviceEvaluation, d: Decisio
     b.warnings.push({ code: "finished_surfaces", severity: "info", deviceId: device.id, message: "Walls and ceilings here are finished with no access above or below: expect surface raceway or patching for new cable or a new outlet." });
   }
   const recommendation = d.method;
-  const label = recommendationLabel({ recommendation, poe, splitter });
+  const label = recommendationLabel({ recommendation, poe, splitter, outlet });
   b.warnings.unshift({ code: "designer_decision", severity: "info", deviceId: device.id, message: `Designer decision: ${label}. The rules advised ${base.label}.` });
   if (poeProblem) {
     b.warnings.push({ code: "decision_poe_fails", severity: "error", deviceId: device.id, message: `PoE was chosen although ${poeProblem}.` });

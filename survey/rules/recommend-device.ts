@@ -486,9 +486,10 @@ export function deviceEvaluation(device: Device, settings: SiteSettings, p: Devi
   }
   const poe = poePlanOf(p);
   const splitter = splitterPlanOf(p, settings);
+  const outlet = outletPlanOf(p, device);
   const label = p.recommendation === 'poe' && poe !== null
     ? POE_LABEL[poe.poeClass]
-    : recommendationLabel({ recommendation: p.recommendation, poe, splitter });
+    : recommendationLabel({ recommendation: p.recommendation, poe, splitter, outlet });
   return {
     deviceId: device.id,
     name: device.name,
@@ -501,7 +502,7 @@ export function deviceEvaluation(device: Device, settings: SiteSettings, p: Devi
     typicalFigure: device.power.typical,
     poe,
     splitter,
-    outlet: outletPlanOf(p, device),
+    outlet,
     cable,
     reasons: deferredListOf(new DeviceReasons(
       p.path, deviceFacts(device, needW, settings), p.poeCable ? cable : null,

@@ -169,6 +169,13 @@ export function evaluateSwitchWith(ctx: PlanContext, src: PoeSource): SwitchEval
     warnings.push(deferredField<PlanWarning, 'message'>({ code: 'over_ceiling', severity: 'warning', sourceId: src.id, message: '' }, 'message', () =>
       `"${srcName}" ${what} ${formatWatts(roundTo(basisW, 2))}, above the ${formatPercent(planningCeiling ?? 1)} planning ceiling (${formatWatts(roundTo(ceilingW, 2))}) of its budget.`));
   }
+  // Planned by expected draw, yet the classes add up to more than the budget: a switch that sets
+  // power aside by class would refuse the last ports. [MEMORY] Many switches allocate by class
+  // unless the devices negotiate their power over LLDP; which one this switch does is in its manual.
+  if (basis !== 'class' && reservedW > budgetW + EPS) {
+    warnings.push(deferredField<PlanWarning, 'message'>({ code: 'class_reservation_over_budget', severity: 'warning', sourceId: src.id, message: '' }, 'message', () =>
+      `"${srcName}" is planned by expected draw, but its devices' classes add up to ${formatWatts(roundTo(reservedW, 2))}, over its ${formatWatts(budgetW)} budget: if it sets power aside by class, as many switches do, it would refuse the last devices. Check how it allocates power, or plan this site by class.`));
+  }
   const suggestions = deferredList<string>((into) => {
     if (!overCeiling) return;
     const excess = basisW - ceilingW;

@@ -22,7 +22,7 @@ describe('the demo site (invented: the Okonkwo-Lindqvist house)', () => {
     expect(label['hub-hall']).toBe('existing outlet');
     expect(label['link-shed']).toBe('existing outlet'); // passive PoE: its own injector
     expect(label['display-hall']).toBe('new outlet (electrician)');
-    expect(label['bell-front']).toBe('existing outlet'); // keeps its doorbell transformer
+    expect(label['bell-front']).toBe('existing transformer'); // keeps its doorbell transformer
   });
 
   it('places the pinned access point on its injector and the rest on the closet switch', () => {

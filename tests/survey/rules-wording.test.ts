@@ -67,3 +67,27 @@ function evaluateSiteWords(site: Site): string[] {
   const ev = evaluateSite(site);
   return [...ev.warnings.map((w) => w.message), ...ev.assignment.unassigned.map((u) => u.reason), ...ev.switches.flatMap((s) => [...s.reasons, ...s.suggestions])];
 }
+
+describe('a switch planned by expected draw whose classes add up to more than its budget', () => {
+  // IEEE 802.3 PSE power per class (Table 33-11 / 145-16): Class 2 = 7 W, 3 = 15.4 W, 4 = 30 W.
+  it('warns that a switch setting power aside by class would refuse devices; planned by class it is over budget instead', () => {
+    const byExpected = evaluateSite({ ...demoSite, settings: { ...demoSite.settings, budgetBasis: 'expected' } });
+    const sw = byExpected.switches.find((s) => s.sourceId === 'sw-closet')!;
+    const classSum = sw.rows.reduce((t, r) => t + ({ 0: 15.4, 1: 4, 2: 7, 3: 15.4, 4: 30 } as Record<number, number>)[r.poeClass], 0);
+    expect(sw.reservedW).toBeCloseTo(classSum, 6);
+    expect(classSum).toBeGreaterThan(sw.budgetW);
+    const w = sw.warnings.find((x) => x.code === 'class_reservation_over_budget')!;
+    expect(w.severity).toBe('warning');
+    expect(w.message).toContain(`its devices' classes add up to ${classSum.toFixed(1).replace(/\.0$/, '')} W, over its ${sw.budgetW} W budget`);
+    const byClass = evaluateSite({ ...demoSite, settings: { ...demoSite.settings, budgetBasis: 'class' } });
+    expect(byClass.switches.find((s) => s.sourceId === 'sw-closet')!.warnings.map((x) => x.code)).not.toContain('class_reservation_over_budget');
+  });
+});
+
+describe('a doorbell on its transformer', () => {
+  it('is labelled by the transformer it keeps, not by an outlet', () => {
+    const e = evaluateSite(demoSite).devices.find((d) => d.deviceId === 'bell-front')!;
+    expect(e.outlet?.via).toBe('transformer');
+    expect(e.label).toBe('existing transformer');
+  });
+});

@@ -212,6 +212,12 @@ export function unpricedNote(materials: { unpricedCount?: number }): string | nu
   return `${n} line${n === 1 ? " is" : "s are"} still to be priced: the total covers the priced lines only.`;
 }
 
+/** A materials total as shown: "to be priced" while no line has a price yet, never a bare 0.00. */
+export function materialsTotalWords(materials: { lines: readonly unknown[]; total: number; unpricedCount?: number }, money: (x: number) => string): string {
+  const n = materials.unpricedCount ?? 0;
+  return materials.lines.length > 0 && n >= materials.lines.length ? "to be priced" : money(materials.total);
+}
+
 /** The parts of a scope a reader names, in the order the report shows them. */
 const SCOPE_PARTS: readonly { key: keyof ReportContent; words: string }[] = [
   { key: "site", words: "the site's name or address" },

@@ -10,6 +10,7 @@ import type { Plan } from "@/hooks/queries/plan";
 import { MATERIAL_GROUP_NAMES, MATERIAL_GROUPS, MATERIALS_CURRENCY } from "@/survey/materials";
 import { ApiError } from "@/sync/http";
 import { money } from "@/components/ui/format";
+import { materialsTotalWords } from "@/survey/report";
 import { parseTypedNumber } from "@/survey/typed-numbers";
 
 function download(url: string) {
@@ -129,7 +130,7 @@ export function MaterialsPanel({ siteId, plan, wide, editable }: { siteId: strin
           <AppText style={[styles.thText, styles.footText, { flex: 1 }]}>
             {`Total, ${MATERIALS_CURRENCY}`}{m.unpricedCount ? ` (${m.unpricedCount} line${m.unpricedCount === 1 ? "" : "s"} without a price)` : ""}
           </AppText>
-          <AppText testID="materials-total" style={[styles.total, { fontFamily: fonts.heavy, fontSize: 18 }]}>{money(m.total)}</AppText>
+          <AppText testID="materials-total" style={[styles.total, { fontFamily: fonts.heavy, fontSize: 18 }]}>{materialsTotalWords(m, money)}</AppText>
         </View>
       </View>
     </View>

@@ -14,6 +14,7 @@ import { ClosetPanel } from "./closet-panel";
 import { DeviceList } from "./device-list";
 import { MaterialsPanel } from "./materials-panel";
 import { money, when } from "@/components/ui/format";
+import { materialsTotalWords } from "@/survey/report";
 import { MATERIALS_CURRENCY } from "@/survey/materials";
 
 type Part = "devices" | "closet" | "materials";
@@ -84,7 +85,7 @@ function Summary({ plan: p, wide }: { plan: Plan; wide: boolean }) {
         <Stat label="designer decisions" value={String(decided)} />
         <Stat label="problems · checks" value={`${s.warningCounts.error} · ${s.warningCounts.warning}`} tone={s.warningCounts.error ? "danger" : s.warningCounts.warning ? "warn" : undefined} />
         <Stat label="must stay up, stays up" value={`${s.mustStayUp.staysUp} of ${s.mustStayUp.total}`} tone={s.mustStayUp.goesDown ? "warn" : undefined} />
-        <Stat label={`materials, ${MATERIALS_CURRENCY}${p.materials.unpricedCount ? ` · ${p.materials.unpricedCount} unpriced` : ""}`} value={money(p.materials.total)} />
+        <Stat label={`materials, ${MATERIALS_CURRENCY}${p.materials.unpricedCount ? ` · ${p.materials.unpricedCount} unpriced` : ""}`} value={materialsTotalWords(p.materials, money)} />
       </View>
       {wide ? (
         <View style={styles.charts}>

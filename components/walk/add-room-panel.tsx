@@ -15,6 +15,8 @@ export function AddRoomPanel({ floorName, onAdd, onClose }: { floorName: string;
   const [busy, setBusy] = useState<string | null>(null);
 
   async function add(type: RoomType) {
+    // One room per press: Enter in the name field and a click on the button do not both add one.
+    if (busy !== null) return;
     setBusy(type.name);
     try {
       const result = await onAdd(type);

@@ -121,7 +121,7 @@ function RoomDetails({ room, floors, onSave }: { room: WalkRoom; floors: { id: s
 }
 
 export function RoomScreen() {
-  const { id: siteId, roomId } = useLocalSearchParams<{ id: string; roomId: string }>();
+  const { id: siteId, roomId, renamedFrom } = useLocalSearchParams<{ id: string; roomId: string; renamedFrom?: string }>();
   const { site, walk, photos, isPending, error } = useWalk(siteId);
   const actions = useWalkActions(siteId);
   const [added, setAdded] = useState<string | null>(null);
@@ -155,6 +155,7 @@ export function RoomScreen() {
     <Screen title={room.name} subtitle={`${floor?.name ?? "No floor"} · ${room.devices.length === 1 ? "1 device" : `${room.devices.length} devices`} · ${gapsLabel(room.gapCount)}`} back={back} actions={room.isCloset ? <Badge label="network closet" /> : undefined}>
       <SyncPill />
       {site ? <ScopeStatusNotice status={site.status} /> : null}
+      {renamedFrom ? <Banner tone="info">{`The walk already has a room called "${renamedFrom}", so this one was given a number. Change its room name below if it has a better one.`}</Banner> : null}
       {room.gapLines.length ? (
         <Card role="region" aria-label="Gaps in this room">
           <AppText variant="subheading">Gaps in this room</AppText>

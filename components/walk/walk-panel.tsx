@@ -72,7 +72,12 @@ function FloorCard({ siteId, floor, takenRoomNames, onAddRoom }: { siteId: strin
           onClose={() => setAdding(false)}
           onAdd={async (type) => {
             const result = await onAddRoom(floor.id, type, takenRoomNames);
-            if (result.ok) router.push(`/sites/${siteId}/rooms/${result.id}` as never);
+            if (result.ok) {
+              // A name already on the walk got a number: the room screen says so once, where it can be renamed.
+              const given = String(result.fields.name);
+              const asked = type.name.trim();
+              router.push(`/sites/${siteId}/rooms/${result.id}${given !== asked ? `?renamedFrom=${encodeURIComponent(asked)}` : ""}` as never);
+            }
             return result;
           }}
         />

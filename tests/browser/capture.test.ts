@@ -277,4 +277,25 @@ describe("capturing a walk on the phone", () => {
     await a.close();
     await b.close();
   });
+  it("a room typed with a name the walk has is added once, numbered, and says so", async () => {
+    const context = await suite.browser.newContext({ viewport: PHONE });
+    const page = await context.newPage();
+    const watch = watchPage(page);
+    await signInThroughUi(page, suite.server, "priya@lanternfield.test");
+    await openDemoWalk(page);
+    await page.getByRole("button", { name: "Add room to Ground floor" }).click();
+    const name = page.getByRole("group", { name: "Add a room to Ground floor" }).getByRole("textbox", { name: "Or a room by name" });
+    await name.fill("Kitchen ");
+    // Enter in the field and a click on the button straight after: one room, not two.
+    await name.press("Enter");
+    await page.getByRole("button", { name: "Add this room" }).click({ timeout: 1000 }).catch(() => undefined);
+    await page.getByRole("heading", { name: "Kitchen 2", exact: true }).waitFor();
+    await page.getByText('The walk already has a room called "Kitchen", so this one was given a number. Change its room name below if it has a better one.').waitFor();
+    await screenshot(page, "capture-room-numbered-phone");
+    await page.getByRole("link", { name: /^Back to .*Okonkwo-Lindqvist house/ }).click();
+    await page.getByRole("link", { name: /^Kitchen 2: / }).waitFor();
+    expect(await page.getByRole("link", { name: /^Kitchen \d: / }).count()).toBe(1);
+    expect(realProblems(watch)).toEqual([]);
+    await context.close();
+  });
 });

@@ -3,7 +3,7 @@
 import { describe, expect, it } from 'vitest';
 import { demoSiteInput } from '../../survey/demo-site';
 import { evaluateSite, parseSite, type SiteInput } from '../../survey/index';
-import { buildReportContent, scopeDrift, scopeDriftWords, type ReportContent } from '../../survey/report';
+import { buildReportContent, materialsTotalWords, scopeDrift, scopeDriftWords, type ReportContent } from '../../survey/report';
 
 const money = (x: number) => x.toFixed(2);
 
@@ -78,5 +78,14 @@ describe('the scope lists every problem the plan has with a device', () => {
       const d = devices.find((x) => x.id === e.deviceId)!;
       for (const w of e.warnings.filter((x) => x.severity !== 'info')) expect(d.warnings.filter((m) => m === w.message)).toHaveLength(1);
     }
+  });
+});
+
+describe('a materials total', () => {
+  it('reads "to be priced" while no line has a price, and the sum once one has', () => {
+    const money = (x: number) => x.toFixed(2);
+    expect(materialsTotalWords({ lines: [1, 2], total: 0, unpricedCount: 2 }, money)).toBe('to be priced');
+    expect(materialsTotalWords({ lines: [1, 2], total: 6.5, unpricedCount: 1 }, money)).toBe('6.50');
+    expect(materialsTotalWords({ lines: [], total: 0, unpricedCount: 0 }, money)).toBe('0.00');
   });
 });

@@ -14,7 +14,7 @@ export function ChoiceChips<T extends string>({ label, value, choices, onChange,
       <AppText variant="label" style={{ color: colors.slate800 }}>
         {label}
       </AppText>
-      <View role="radiogroup" aria-label={label} style={styles.row}>
+      <View role="radiogroup" aria-label={label} aria-invalid={errors?.length ? true : undefined} style={styles.row}>
         {choices.map((c) => {
           const selected = c.value === value;
           return (

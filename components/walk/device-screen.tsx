@@ -23,6 +23,7 @@ import { POE_CLASS_VALUES } from "@/survey/standards/poe-classes";
 import { unitLabel, type UnitSystem } from "@/survey/units";
 import { parseNumber, type DeviceForm } from "@/survey/walk/device-form";
 import { heldNotice } from "@/survey/walk/describe";
+import { focusFirstInvalid } from "@/components/ui/focus-first-invalid";
 import { CABLE_ACCESS_WORDS, CATEGORY_WORDS, INPUT_WORDS, KIND_WORDS, MOUNT_WORDS, POLARITY_WORDS } from "@/survey/walk/words";
 import type { SiteItem } from "@/survey/capture";
 import type { SiteRecord } from "@/sync/protocol";
@@ -84,7 +85,9 @@ function DeviceEditor({ siteId, deviceId, site, walk, items, photos, back }: { s
   async function save() {
     setFailure(null);
     try {
-      setOutcome(await f.submit());
+      const result = await f.submit();
+      setOutcome(result);
+      if (result.held.length) focusFirstInvalid();
     } catch (err) {
       // Nothing was stored: what was typed stays in the form.
       setOutcome(null);

@@ -228,12 +228,33 @@ export function checkDeviceForm(form: DeviceForm, units: UnitSystem): FormCheck 
     for (const [path, messages] of Object.entries(result.errors)) {
       badFields.add(path.split('.')[0]);
       const key = errorKey(path, form);
-      const shown = units === 'imperial' && (key === 'runLength' || key === 'outletDistance') ? messages.map((m) => withFeet(m, form[key] as string, units)) : messages;
+      const worded = messages.map((m) => (m === REQUIRED && MISSING_WORDS[key] ? MISSING_WORDS[key]! : m));
+      const shown = units === 'imperial' && (key === 'runLength' || key === 'outletDistance') ? worded.map((m) => withFeet(m, form[key] as string, units)) : worded;
       errors[key] = [...(errors[key] ?? []), ...shown];
     }
   }
   return { fields, badFields, errors };
 }
+
+/** The shared schemas' word for a value left out (validation.ts). */
+const REQUIRED = 'This field is required.';
+
+/** What the form asks for when a part of a field is left out, in the words of its input. */
+const MISSING_WORDS: Partial<Record<FormKey, string>> = {
+  runCategory: 'Choose its cable category (Cat 5e, Cat 6 or Cat 6A): a run is saved with its length and category together.',
+  runLength: 'Type the length of the run too, or clear the cable run.',
+  polarity: 'Choose the plug\'s polarity, or "Not marked" when nothing says.',
+  barrelOuter: 'Type the plug\'s outer diameter, or pick its size.',
+  barrelInner: 'Type the plug\'s inner diameter, or pick its size.',
+  barrelVolts: 'Type the voltage printed on the device or its adapter.',
+  terminalVolts: 'Type the voltage at the terminals.',
+  terminalCurrent: 'Choose DC or AC at the terminals.',
+  passiveVolts: 'Type the passive PoE voltage printed on the device.',
+  watts: 'Type its power need in watts, or switch to the adapter\'s volts and amps.',
+  volts: 'Type the volts printed on its adapter.',
+  amps: 'Type the amps printed on its adapter.',
+  inputType: 'Choose how it takes power.',
+};
 
 /** Schema messages speak metres; an imperial surveyor also sees what they typed. */
 function withFeet(message: string, typed: string, units: UnitSystem): string {

@@ -99,6 +99,8 @@ describe("capturing a walk on the phone", () => {
     await page.getByRole("alert").filter({ hasText: "Cable run must be a number" }).waitFor();
     expect(await page.getByRole("textbox", { name: "Cable run to the closet" }).inputValue()).toBe("18 m");
     expect(await page.getByRole("textbox", { name: "Cable run to the closet" }).getAttribute("aria-invalid")).toBe("true");
+    // The keyboard is taken to the field to fix.
+    await expect.poll(() => page.evaluate(() => document.activeElement?.getAttribute("aria-label") ?? (document.activeElement as HTMLInputElement | null)?.labels?.[0]?.textContent ?? "")).toMatch(/Cable run to the closet/);
     // The run's parts are saved together: its category waits with the bad length, and the notice says so.
     await page.getByText("One entry needs fixing", { exact: true }).waitFor();
     await page.getByText(/Fix Cable run to the closet \(marked in the form\)\. Until then the cable run \(its length, category, gauge and copper-clad aluminium are saved together\) is not saved; what you typed is still here\. The other fields are saved on this phone\./).waitFor();

@@ -74,8 +74,9 @@ describe('the device form', () => {
   it('asks for what a choice needs: a category with a run length, a polarity with a barrel', () => {
     const form = deviceToForm({ kind: 'camera', name: 'Shed camera', roomId: 'r' }, 'metric');
     const check = checkDeviceForm({ ...form, runLength: '12', inputType: 'dc_barrel', barrelOuter: '5.5', barrelInner: '2.1', barrelVolts: '12' }, 'metric');
-    expect(check.errors.runCategory).toEqual(['This field is required.']);
-    expect(check.errors.polarity).toEqual(['This field is required.']);
+    // A part left out is asked for in the words of its input, not the schema's "This field is required.".
+    expect(check.errors.runCategory).toEqual(['Choose its cable category (Cat 5e, Cat 6 or Cat 6A): a run is saved with its length and category together.']);
+    expect(check.errors.polarity).toEqual(['Choose the plug\'s polarity, or "Not marked" when nothing says.']);
     const sizes = checkDeviceForm({ ...form, inputType: 'dc_barrel', barrelOuter: '5.5', barrelInner: '2.2', polarity: 'centre_positive', barrelVolts: '12' }, 'metric');
     expect(sizes.errors.barrelInner?.[0]).toMatch(/^5\.5×2\.2 mm is not a barrel size we know/);
     const poe = checkDeviceForm({ ...form, inputType: 'poe', poeClass: '4', poeStandard: 'af' }, 'metric');

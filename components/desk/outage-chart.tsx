@@ -8,7 +8,9 @@ import type { Plan } from "@/hooks/queries/plan";
 import { formatMinutes } from "@/survey/units";
 
 const ROW = 22;
-const LABEL_W = 150;
+/** The names' column: wider when the chart is (a desktop shows whole names), about 6.5 px a character at 12 px. */
+const labelWidth = (chartW: number) => (chartW >= 640 ? 240 : 150);
+const nameChars = (labelW: number) => Math.floor((labelW - 20) / 6.5);
 
 export function OutageChart({ plan }: { plan: Plan }) {
   const [width, setWidth] = useState(320);
@@ -21,6 +23,8 @@ export function OutageChart({ plan }: { plan: Plan }) {
   // Axis ticks every 15, 30 or 60 minutes.
   const step = maxMin <= 90 ? 15 : maxMin <= 240 ? 30 : 60;
   const axisMax = Math.ceil(maxMin / step) * step;
+  const LABEL_W = labelWidth(width);
+  const maxChars = nameChars(LABEL_W);
   const plotW = width - LABEL_W - 52;
   const x = (m: number) => LABEL_W + (m / axisMax) * plotW;
   const height = up.length * ROW + 30;
@@ -44,7 +48,7 @@ export function OutageChart({ plan }: { plan: Plan }) {
                 <G key={d.deviceId}>
                   {d.mustStayUp ? <Circle cx={6} cy={y + 7} r={4} fill={colors.copper500} /> : null}
                   <SvgText x={16} y={y + 11} fontSize={12} fontFamily={d.mustStayUp ? fonts.bold : fonts.regular} fill={colors.ink}>
-                    {name.length > 22 ? `${name.slice(0, 21)}…` : name}
+                    {name.length > maxChars ? `${name.slice(0, maxChars - 1)}…` : name}
                   </SvgText>
                   <Rect x={LABEL_W} y={y} width={Math.max(2, x(d.minutes ?? 0) - LABEL_W)} height={14} rx={3} fill={d.minutes === null ? colors.slate100 : colors.slate700} />
                   <SvgText x={x(d.minutes ?? 0) + 4} y={y + 11} fontSize={11} fontFamily={fonts.semibold} fill={colors.ink}>

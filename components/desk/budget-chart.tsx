@@ -24,25 +24,29 @@ export function BudgetChart({ sw }: { sw: PlanSwitch }) {
     { label: "Set aside (class)", value: sw.reservedW, color: colors.slate700, y: 24, state: state(sw.reservedW, sw.basis === "class"), basis: sw.basis === "class" },
     { label: "Expected draw", value: sw.expectedW, color: colors.copper500, y: 52, state: state(sw.expectedW, sw.basis === "expected"), basis: sw.basis === "expected" },
   ];
-  const summary = `${sw.name}: ${formatNumber(sw.reservedW, 1)} W set aside by class, ${formatNumber(sw.expectedW, 1)} W expected, planning ceiling ${formatNumber(sw.ceilingW, 1)} W, budget ${formatNumber(sw.budgetW, 1)} W; checked on the ${sw.basis === "class" ? "class reservation" : "expected draw"}.`;
+  // An injector's ports have a fixed power each: it is held against its budget only, with no planning ceiling.
+  const hasCeiling = sw.planningCeiling !== null;
+  const summary = `${sw.name}: ${formatNumber(sw.reservedW, 1)} W set aside by class, ${formatNumber(sw.expectedW, 1)} W expected, ${hasCeiling ? `planning ceiling ${formatNumber(sw.ceilingW, 1)} W, ` : ""}budget ${formatNumber(sw.budgetW, 1)} W; checked on the ${sw.basis === "class" ? "class reservation" : "expected draw"}.`;
   return (
     <View onLayout={onLayout} role="img" aria-label={summary} testID={`budget-chart-${sw.sourceId}`}>
       <Svg width={width} height={height}>
         <Rect x={LABEL_W} y={16} width={x(sw.budgetW) - LABEL_W} height={62} fill={colors.slate50} />
         {rows.map((r) => (
-          <SvgTextRow key={r.label} {...r} x={x} lines={[x(sw.ceilingW), x(sw.budgetW)]} />
+          <SvgTextRow key={r.label} {...r} x={x} lines={hasCeiling ? [x(sw.ceilingW), x(sw.budgetW)] : [x(sw.budgetW)]} />
         ))}
-        <Line x1={x(sw.ceilingW)} x2={x(sw.ceilingW)} y1={14} y2={80} stroke={colors.warn} strokeWidth={2} strokeDasharray="5 4" />
+        {hasCeiling ? <Line x1={x(sw.ceilingW)} x2={x(sw.ceilingW)} y1={14} y2={80} stroke={colors.warn} strokeWidth={2} strokeDasharray="5 4" /> : null}
         <Line x1={x(sw.budgetW)} x2={x(sw.budgetW)} y1={14} y2={88} stroke={colors.ink} strokeWidth={2} />
-        <SvgText x={x(sw.ceilingW)} y={10} fontSize={11} fontFamily={fonts.semibold} fill={colors.warn} textAnchor="middle">
-          {`ceiling ${formatNumber(sw.ceilingW, 1)} W`}
-        </SvgText>
+        {hasCeiling ? (
+          <SvgText x={x(sw.ceilingW)} y={10} fontSize={11} fontFamily={fonts.semibold} fill={colors.warn} textAnchor="middle">
+            {`ceiling ${formatNumber(sw.ceilingW, 1)} W`}
+          </SvgText>
+        ) : null}
         <SvgText x={x(sw.budgetW) - 4} y={94} fontSize={11} fontFamily={fonts.semibold} fill={colors.ink} textAnchor="end">
           {`budget ${formatNumber(sw.budgetW, 1)} W`}
         </SvgText>
       </Svg>
       <AppText variant="caption" muted>
-        Held against the budget: {sw.basis === "class" ? "what the ports set aside by class (the safe reading)" : "the expected draw (the switch allocates by actual draw)"}. Dashed bar: for reference.
+        Held against the budget: {sw.basis === "class" ? "what the ports set aside by class (the safe reading)" : "the expected draw (right for a switch that allocates by actual draw)"}. Dashed bar: for reference.{hasCeiling ? "" : " An injector has no planning ceiling: each port's power is fixed."}
       </AppText>
     </View>
   );

@@ -116,10 +116,18 @@ export function buildMaterials(site: Site, evaluation: SiteEvaluation): Material
       if (s.kind === "poe_switch" && s.budgetW > best) [best, ports, budget] = [s.budgetW, s.poePorts, s.budgetW];
     }
     const unassigned = evaluation.assignment.unassigned.map((u) => u.deviceId);
+    // The ports must be of the highest type the devices left over need (a splitter's class counts).
+    const byId = new Map(evaluation.devices.map((d) => [d.deviceId, d]));
+    let needType = 1;
+    for (const id of unassigned) {
+      const d = byId.get(id);
+      const t = d?.poe?.poeType ?? d?.splitter?.poeType ?? 1;
+      if (t > needType) needType = t;
+    }
     lines.push({
       key: `poe-switch:additional:${ports}-port:${formatNumber(budget)}w`,
       group: "switches",
-      item: `Additional PoE switch, ${ports} PoE ports, ${formatNumber(budget)} W budget (estimate)`,
+      item: `Additional PoE switch, ${typeName(needType as PoeType)} or better, ${ports} PoE ports, ${formatNumber(budget)} W budget (estimate)`,
       detail: `for ${names(unassigned.map(deviceName))}`,
       quantity: extra.additionalNeeded,
       unit: "each",

@@ -81,6 +81,11 @@ describe("what changes the materials", () => {
     const extra = l.find((x) => x.key.startsWith("poe-switch:additional"))!;
     expect(extra.quantity).toBeGreaterThan(0);
     expect(extra.deviceIds.length).toBeGreaterThan(0);
+    // Its ports are of the highest PoE type the devices left over need (IEEE 802.3: Class 0–3 → Type 1, 4 → Type 2, 5–6 → 3, 7–8 → 4).
+    const ev = evaluateSite(s);
+    const typeOf = (id: string) => { const d = ev.devices.find((x) => x.deviceId === id)!; return d.poe?.poeType ?? d.splitter?.poeType ?? 1; };
+    const need = Math.max(...extra.deviceIds.map(typeOf));
+    expect(extra.item).toContain(need >= 3 ? `802.3bt Type ${need} or better` : need === 2 ? "802.3at or better" : "802.3af or better");
   });
 
   it("a run longer than a network cable may be is ordered as captured, and its line says so", () => {

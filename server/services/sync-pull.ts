@@ -35,11 +35,16 @@ export async function pullChanges(db: Db, actor: Actor, request: PullRequest): P
           kept.length ? and(inArray(table.siteId, kept), gt(table.version, cursor)) : sql`false`,
           fresh.length ? inArray(table.siteId, fresh) : sql`false`,
         );
+      // Thousands of rows on a first pull: read as the driver gives them (the columns named as the
+      // protocol names them, jsonb already parsed, the bigint version as a float8 number, exact to
+      // 2^53 like the schema's number mode), which skips a second mapping of every row.
       const itemRows = visibleIds.length
-        ? await tx
-            .select({ id: items.id, siteId: items.siteId, kind: items.kind, data: items.data, deleted: items.deleted, version: items.version })
-            .from(items)
-            .where(and(eq(items.teamId, actor.teamId), changed(items), fresh.length ? or(notInArray(items.siteId, fresh), eq(items.deleted, false)) : undefined))
+        ? (
+            await tx.execute<PullResponse["items"][number] & Record<string, unknown>>(sql`select ${items.id} as "id", ${items.siteId} as "siteId", ${items.kind} as "kind",
+                ${items.data} as "data", ${items.deleted} as "deleted", ${items.version}::float8 as "version"
+              from ${items}
+              where ${and(eq(items.teamId, actor.teamId), changed(items), fresh.length ? or(notInArray(items.siteId, fresh), eq(items.deleted, false)) : undefined)}`)
+          ).rows
         : [];
       // Photos, lost values and refused changes since the cursor: small lists, fetched together in one
       // statement (each a JSON array) rather than three round trips.

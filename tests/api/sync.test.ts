@@ -121,6 +121,10 @@ describe("push applies each change exactly once", () => {
     expect((await push(priya, client, [bad, room(2, good, "Hall")]).expect(200)).body.lastMutationId).toBe(2);
     expect(await itemRow(good)).toBeDefined();
     const changes = await pull(priya, client, cursor);
+    // Each item reads as the protocol says: the stored row, its version a number like the cursor.
+    const pulledRoom = changes.items.find((i) => i.id === good)!;
+    expect(pulledRoom).toEqual({ id: good, siteId: DEMO_SITE_ID, kind: "room", data: expect.objectContaining({ name: "Hall" }), deleted: false, version: expect.any(Number) });
+    expect(pulledRoom.version).toBe((await itemRow(good)).version);
     expect(changes.rejections).toHaveLength(1);
     expect(changes.rejections[0]).toMatchObject({ mutationId: 1, code: "invalid" });
     expect(changes.rejections[0].message).toMatch(/power/i);

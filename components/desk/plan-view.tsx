@@ -81,7 +81,7 @@ function Summary({ plan: p, wide }: { plan: Plan; wide: boolean }) {
           tone={p.completeness.complete < p.completeness.total ? "warn" : undefined}
         />
         <Stat label="on PoE" value={String(s.byRecommendation.poe + s.byRecommendation.poe_splitter)} />
-        <Stat label="outlets" value={`${s.byRecommendation.existing_outlet} + ${s.byRecommendation.new_outlet} new`} />
+        <Stat label="on mains: existing + new (outlet or transformer)" value={`${s.byRecommendation.existing_outlet} + ${s.byRecommendation.new_outlet} new`} />
         <Stat label="designer decisions" value={String(decided)} />
         <Stat label="problems · checks" value={`${s.warningCounts.error} · ${s.warningCounts.warning}`} tone={s.warningCounts.error ? "danger" : s.warningCounts.warning ? "warn" : undefined} />
         <Stat label="must stay up, stays up" value={`${s.mustStayUp.staysUp} of ${s.mustStayUp.total}`} tone={s.mustStayUp.goesDown ? "warn" : undefined} />

@@ -26,7 +26,7 @@ export function ScopeView({ view, isClient }: { view: ReportView; isClient: bool
       <Card>
         <AppText variant="label" color={colors.copper700}>{`Version ${report.version} · published ${when(report.publishedAt)}`}</AppText>
         <AppText variant="heading">What this plan does</AppText>
-        <AppText>{`${s.devices} devices: ${s.onPoe} on PoE (power and data over one cable), ${s.onSplitters} on PoE with a splitter, ${s.onExistingOutlets} on an existing outlet, ${s.newOutlets} on a new outlet put in by a licensed electrician${s.cannotPower ? `, ${s.cannotPower} that cannot be powered as captured` : ""}.`}</AppText>
+        <AppText>{`${s.devices} devices: ${s.onPoe} on PoE (power and data over one cable), ${s.onSplitters} on PoE with a splitter, ${s.onExistingOutlets} on an existing outlet or transformer, ${s.newOutlets} on a new outlet or transformer put in by a licensed electrician${s.cannotPower ? `, ${s.cannotPower} that cannot be powered as captured` : ""}.`}</AppText>
         <AppText>
           {s.mustStayUp
             ? `In a power cut, ${s.staysUpOnBattery} of the ${s.mustStayUp} devices that must keep working stay up on the battery${s.shortestRuntimeMin !== null ? `, the shortest for about ${s.shortestRuntimeMin} minutes` : ""}.`

@@ -50,7 +50,7 @@ export function renderReportPdf(content: ReportContent, hash: string): Promise<B
 
   heading("Summary");
   const s = content.summary;
-  para(`${s.devices} devices are planned. ${s.onPoe} get power and data over one cable (PoE); ${s.onSplitters} use PoE with a splitter that turns it into the plug they need; ${s.onExistingOutlets} stay on an existing outlet; ${s.newOutlets} need a new outlet, installed by a licensed electrician${s.cannotPower ? `; ${s.cannotPower} cannot be powered as captured` : ""}.`);
+  para(`${s.devices} devices are planned. ${s.onPoe} get power and data over one cable (PoE); ${s.onSplitters} use PoE with a splitter that turns it into the plug they need; ${s.onExistingOutlets} stay on an existing outlet or transformer; ${s.newOutlets} need a new outlet or transformer, installed by a licensed electrician${s.cannotPower ? `; ${s.cannotPower} cannot be powered as captured` : ""}.`);
   para(`The PoE switches reserve ${s.poeReservedW} W for these devices and are expected to deliver about ${s.poeExpectedW} W.`);
   para(
     s.mustStayUp

@@ -13,11 +13,14 @@ export function addFieldError(errors: FieldErrors, key: string, ...messages: str
  * Per-field messages from valibot issues, keyed by dotted path ("_" for the whole value). A missing
  * key comes out of valibot as "Invalid key: …"; it reads "This field is required." instead.
  */
+/** The message for a value left out. */
+export const REQUIRED_MESSAGE = "This field is required.";
+
 export function fieldErrors(issues: readonly v.BaseIssue<unknown>[]): FieldErrors {
   const out: FieldErrors = {};
   for (const issue of issues) {
     const key = v.getDotPath(issue) ?? "_";
-    const message = issue.input === undefined && issue.message.startsWith("Invalid key") ? "This field is required." : issue.message;
+    const message = issue.input === undefined && issue.message.startsWith("Invalid key") ? REQUIRED_MESSAGE : issue.message;
     addFieldError(out, key, message);
   }
   return out;

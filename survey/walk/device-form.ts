@@ -2,6 +2,7 @@
 // both ways. Every field is checked with the shared device schemas; a bad field keeps what was
 // typed and says what is wrong, and never stops the other fields from being saved.
 import { checkItemDraft } from '../capture';
+import { REQUIRED_MESSAGE } from '../validation';
 import type { CableAccess, DeviceKind, Mount, Polarity } from '../model/device';
 import type { AwgGauge } from '../standards/awg';
 import type { CableCategory } from '../standards/cabling';
@@ -228,16 +229,13 @@ export function checkDeviceForm(form: DeviceForm, units: UnitSystem): FormCheck 
     for (const [path, messages] of Object.entries(result.errors)) {
       badFields.add(path.split('.')[0]);
       const key = errorKey(path, form);
-      const worded = messages.map((m) => (m === REQUIRED && MISSING_WORDS[key] ? MISSING_WORDS[key]! : m));
+      const worded = messages.map((m) => (m === REQUIRED_MESSAGE && MISSING_WORDS[key] ? MISSING_WORDS[key]! : m));
       const shown = units === 'imperial' && (key === 'runLength' || key === 'outletDistance') ? worded.map((m) => withFeet(m, form[key] as string, units)) : worded;
       errors[key] = [...(errors[key] ?? []), ...shown];
     }
   }
   return { fields, badFields, errors };
 }
-
-/** The shared schemas' word for a value left out (validation.ts). */
-const REQUIRED = 'This field is required.';
 
 /** What the form asks for when a part of a field is left out, in the words of its input. */
 const MISSING_WORDS: Partial<Record<FormKey, string>> = {

@@ -146,7 +146,7 @@ export class DeviceReasons extends DeferredList<string> {
         else into.push(`${capitalize(outletDistanceText(distanceM, u))}, so power over its network cable saves new mains wiring.`);
         // The figure it needs, and the stock rating the plan buys when that is higher (the label shows the rating).
         const rating = s.ratingAmps > s.minAmps ? ` (a ${formatNumber(s.ratingAmps)} A splitter)` : '';
-        into.push(`A PoE splitter next to it turns the cable's power into ${formatNumber(s.outputVolts)} V at ${formatNumber(s.minAmps)} A or more${rating} for its ${s.plug.label} input${s.usbLevel ? ` (${s.usbLevel})` : ''}.`);
+        into.push(`A PoE splitter next to it turns the cable's power into ${formatNumber(s.outputVolts)} V at ${formatNumber(s.minAmps)} A or more${rating} to match its input (${s.plug.label}${s.usbLevel ? `; the ${s.usbLevel} power level` : ''}).`);
         into.push(`The splitter wastes about ${formatPercent(1 - s.efficiency)} in conversion, so it draws ${formatWatts(s.inputW)}: the switch port must be Class ${plan.poeClass} (${plan.standard}${plan.poeType >= 3 ? ` Type ${plan.poeType}` : ''}) and sets aside ${formatWatts(plan.reservedW)}.`);
         return;
       }

@@ -91,3 +91,12 @@ describe('a doorbell on its transformer', () => {
     expect(e.label).toBe('existing transformer');
   });
 });
+
+describe('a splitter\'s reason', () => {
+  it('names the input it matches in brackets, and for USB the power level it is sized to', () => {
+    const drive = evaluateSite(demoSite).devices.find((d) => d.deviceId === 'cam-drive')!;
+    expect(drive.reasons).toContain('A PoE splitter next to it turns the cable\'s power into 12 V at 0.5 A or more to match its input (5.5×2.5 mm, polarity unknown).');
+    const hub = evaluateSite(demoSite).devices.find((d) => d.deviceId === 'hub-kitchen')!;
+    expect(hub.reasons.find((r) => r.startsWith('A PoE splitter'))).toMatch(/to match its input \(USB-C; the USB .+ power level\)\.$/);
+  });
+});

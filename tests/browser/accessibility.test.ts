@@ -90,4 +90,24 @@ describe("accessibility (axe-core)", () => {
     await page.getByRole("navigation", { name: "Main" }).waitFor();
     await context.close();
   });
+
+  it("a row of choices is one Tab stop, and the arrow keys move the choice", async () => {
+    const context = await browser.newContext({ viewport: PHONE });
+    const page = await context.newPage();
+    await page.goto(`${server.url}/sign-in`, { waitUntil: "networkidle" });
+    const team = page.getByRole("radio", { name: "I'm on the team" });
+    const homeowner = page.getByRole("radio", { name: "I'm the homeowner" });
+    expect(await team.getAttribute("aria-checked")).toBe("true");
+    expect(await team.getAttribute("tabindex")).toBe("0");
+    expect(await homeowner.getAttribute("tabindex")).toBe("-1");
+    await team.focus();
+    await page.keyboard.press("ArrowRight");
+    await expect.poll(() => homeowner.getAttribute("aria-checked")).toBe("true");
+    expect(await page.evaluate(() => document.activeElement?.getAttribute("aria-label"))).toBe("I'm the homeowner");
+    expect(await homeowner.getAttribute("tabindex")).toBe("0");
+    await page.getByRole("button", { name: "Send me a link" }).waitFor();
+    await page.keyboard.press("ArrowLeft");
+    await expect.poll(() => team.getAttribute("aria-checked")).toBe("true");
+    await context.close();
+  });
 });

@@ -3,7 +3,7 @@
 import { onlineManager } from "@tanstack/react-query";
 import { useSyncExternalStore } from "react";
 
-function isOnlineNow(): boolean {
+export function isOnlineNow(): boolean {
   return onlineManager.isOnline() && (typeof navigator === "undefined" || navigator.onLine !== false);
 }
 
@@ -26,4 +26,3 @@ export function useOnline(): boolean {
   return useSyncExternalStore(subscribe, isOnlineNow, () => true);
 }
 
-export { isOnlineNow };

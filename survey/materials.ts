@@ -17,7 +17,7 @@ import { orderLengthM, type SiteEvaluation } from "./rules/evaluate-site";
 import { CABLE_CATEGORY_NAMES, CHANNEL_LIMITS, type CableCategory } from "./standards/cabling";
 import { PLANNING } from "./standards/planning-defaults";
 import type { PoeClass } from "./standards/poe-classes";
-import { POE_TYPES, type PoeType } from "./standards/poe-types";
+import { poeTypeName, type PoeType } from "./standards/poe-types";
 import { formatNumber, metresToFeet, type UnitSystem } from "./units";
 
 export const MATERIAL_GROUPS = ["switches", "injectors", "splitters", "battery", "cable", "terminations", "electrician"] as const;
@@ -60,10 +60,6 @@ export interface PricedMaterials {
   readonly unpricedCount: number;
 }
 
-function typeName(t: PoeType): string {
-  return t >= 3 ? `${POE_TYPES[t].standardName} Type ${t}` : POE_TYPES[t].standardName;
-}
-
 function slug(s: string): string {
   return s
     .toLowerCase()
@@ -94,12 +90,12 @@ export function buildMaterials(site: Site, evaluation: SiteEvaluation): Material
   for (const s of site.powerSources) {
     if (s.kind === "poe_switch") {
       const key = `poe-switch:type${s.poeType}:${s.poePorts}-port:${formatNumber(s.budgetW)}w`;
-      const g = sourceGroups.get(key) ?? { group: "switches", item: `PoE switch, ${typeName(s.poeType)}, ${s.poePorts} PoE ports, ${formatNumber(s.budgetW)} W budget`, names: [] };
+      const g = sourceGroups.get(key) ?? { group: "switches", item: `PoE switch, ${poeTypeName(s.poeType)}, ${s.poePorts} PoE ports, ${formatNumber(s.budgetW)} W budget`, names: [] };
       g.names.push(s.name);
       sourceGroups.set(key, g);
     } else if (s.kind === "injector") {
       const key = `injector:type${s.poeType}:${s.ports}-port`;
-      const g = sourceGroups.get(key) ?? { group: "injectors", item: `PoE injector, ${typeName(s.poeType)}, ${s.ports} port${s.ports === 1 ? "" : "s"}`, names: [] };
+      const g = sourceGroups.get(key) ?? { group: "injectors", item: `PoE injector, ${poeTypeName(s.poeType)}, ${s.ports} port${s.ports === 1 ? "" : "s"}`, names: [] };
       g.names.push(s.name);
       sourceGroups.set(key, g);
     }
@@ -127,7 +123,7 @@ export function buildMaterials(site: Site, evaluation: SiteEvaluation): Material
     lines.push({
       key: `poe-switch:additional:${ports}-port:${formatNumber(budget)}w`,
       group: "switches",
-      item: `Additional PoE switch, ${typeName(needType as PoeType)} or better, ${ports} PoE ports, ${formatNumber(budget)} W budget (estimate)`,
+      item: `Additional PoE switch, ${poeTypeName(needType as PoeType)} or better, ${ports} PoE ports, ${formatNumber(budget)} W budget (estimate)`,
       detail: `for ${names(unassigned.map(deviceName))}`,
       quantity: extra.additionalNeeded,
       unit: "each",

@@ -2,6 +2,7 @@
 // keyboard user reaches for first; the web's own Pressable only answers Enter for a checkbox).
 import type { ReactNode } from "react";
 import { Pressable, type StyleProp, type ViewStyle } from "react-native";
+import { keyOf, webKeyDown } from "./web-keys";
 
 export function CheckPress({ checked, label, onToggle, style, children }: { checked: boolean; label: string; onToggle: () => void; style?: StyleProp<ViewStyle>; children: ReactNode }) {
   return (
@@ -11,15 +12,11 @@ export function CheckPress({ checked, label, onToggle, style, children }: { chec
       aria-label={label}
       onPress={onToggle}
       // Web only: Space ticks a checkbox. preventDefault keeps the page from scrolling as well.
-      {...({
-        onKeyDown: (e: { key?: string; nativeEvent?: { key?: string }; preventDefault?: () => void }) => {
-          const key = e.key ?? e.nativeEvent?.key;
-          if (key === " " || key === "Spacebar") {
-            e.preventDefault?.();
-            onToggle();
-          }
-        },
-      } as object)}
+      {...webKeyDown((e) => {
+        if (keyOf(e) !== " ") return;
+        e.preventDefault?.();
+        onToggle();
+      })}
       style={style}
     >
       {children}

@@ -2,6 +2,7 @@ import { useRef } from "react";
 import { Pressable, StyleSheet, View } from "react-native";
 import { colors, fonts, minTouch, radius, space } from "@/constants/theme";
 import { AppText } from "./text";
+import { keyOf, webKeyDown, type WebKeyEvent } from "./web-keys";
 
 export interface Choice<T extends string> {
   value: T;
@@ -19,9 +20,9 @@ export function ChoiceChips<T extends string>({ label, value, choices, onChange,
   const chips = useRef<({ focus?: () => void } | null)[]>([]);
   const current = choices.findIndex((c) => c.value === value);
   const tabStop = current >= 0 ? current : 0;
-  const onKey = (i: number) => (e: { key?: string; nativeEvent?: { key?: string }; preventDefault?: () => void }) => {
-    const key = e.key ?? e.nativeEvent?.key ?? "";
-    if (key === " " || key === "Spacebar") {
+  const onKey = (i: number) => (e: WebKeyEvent) => {
+    const key = keyOf(e);
+    if (key === " ") {
       e.preventDefault?.();
       onChange(choices[i].value);
       return;
@@ -48,7 +49,7 @@ export function ChoiceChips<T extends string>({ label, value, choices, onChange,
                 chips.current[i] = el as { focus?: () => void } | null;
               }}
               tabIndex={i === tabStop ? 0 : -1}
-              {...({ onKeyDown: onKey(i) } as object)}
+              {...webKeyDown(onKey(i))}
               role="radio"
               aria-checked={selected}
               aria-label={c.label}

@@ -2,7 +2,7 @@ import type { BatteryBackup } from '../model/battery';
 import { isPoeSource, type PoeSource, type PowerSource } from '../model/power-source';
 import type { Site } from '../model/site';
 import { freezeSite } from '../model/validate';
-import { POE_TYPES } from '../standards/poe-types';
+import { poeTypeName, POE_TYPES, type PoeType } from '../standards/poe-types';
 import { formatPercent, formatWatts, roundTo } from '../units';
 import { deferredField, deferredList } from './deferred-text';
 import type { DeviceEvaluation, PlanWarning } from './result-types';
@@ -138,11 +138,6 @@ function take(st: SourceState, port: number): void {
   while (st.nextFree <= st.ports && st.taken[st.nextFree] === 1) st.nextFree++;
 }
 
-function typeName(t: number): string {
-  const s = POE_TYPES[t as 1 | 2 | 3 | 4];
-  return t >= 3 ? `${s.standardName} Type ${t}` : s.standardName;
-}
-
 /** Assign PoE devices to switch and injector ports. Plans the devices if their results are not given. */
 export function assignPorts(site: Site, devices?: readonly DeviceEvaluation[]): PortAssignment {
   freezeSite(site); // the placements are listed from it when first read
@@ -237,7 +232,7 @@ export function assignPortsWith(
     if (st.src.poeType < poeType[i]) {
       pinProblems.push({
         deviceId: d.id, code: 'pinned_type_too_low',
-        reason: `It is pinned to "${st.src.name}", whose ports are ${typeName(st.src.poeType)}, but it needs ${typeName(poeType[i])} (Class ${poeClass[i]}).`,
+        reason: `It is pinned to "${st.src.name}", whose ports are ${poeTypeName(st.src.poeType)}, but it needs ${poeTypeName(poeType[i] as PoeType)} (Class ${poeClass[i]}).`,
       });
       unassignedDevice.push(i);
       continue;
@@ -430,15 +425,15 @@ function unassignedReason(
 ): UnassignedDevice {
   if (sum.eligible === 0) {
     return deferredField<UnassignedDevice, 'reason'>({ deviceId, code: 'no_port_of_type', reason: '' }, 'reason', () =>
-      `It needs an ${typeName(poeType)} port (Class ${poeClass}); no switch or injector in the plan has one. Add an ${typeName(poeType)} injector or switch.`);
+      `It needs an ${poeTypeName(poeType as PoeType)} port (Class ${poeClass}); no switch or injector in the plan has one. Add an ${poeTypeName(poeType as PoeType)} injector or switch.`);
   }
   if (sum.best === null) {
     const eligiblePorts = sum.eligiblePorts;
     const lowerTypeFree = sum.lowerTypeFree;
     return deferredField<UnassignedDevice, 'reason'>({ deviceId, code: 'ports_full', reason: '' }, 'reason', () => {
       const taken = eligiblePorts === 1
-        ? `The only suitable PoE port (${typeName(poeType)} or better) is taken`
-        : `All ${eligiblePorts} suitable PoE ports (${typeName(poeType)} or better) are taken`;
+        ? `The only suitable PoE port (${poeTypeName(poeType as PoeType)} or better) is taken`
+        : `All ${eligiblePorts} suitable PoE ports (${poeTypeName(poeType as PoeType)} or better) are taken`;
       const lower = lowerTypeFree === 0 ? '' : `; the ${lowerTypeFree === 1 ? 'free port left is' : `${lowerTypeFree} free ports left are`} of a lower PoE type than it needs`;
       return `${taken}${lower}. Add a switch or an injector.`;
     });

@@ -1,6 +1,6 @@
 import type { PoeSource } from '../model/power-source';
 import type { BudgetBasis, Site } from '../model/site';
-import { POE_TYPES, type PoeType } from '../standards/poe-types';
+import { poeTypeName, POE_TYPES, type PoeType } from '../standards/poe-types';
 import { formatPercent, formatWatts, roundTo } from '../units';
 import { sourceBudgetW } from './assign-ports';
 import { deferredField, deferredList } from './deferred-text';
@@ -72,10 +72,6 @@ export interface SwitchEvaluation {
 }
 
 const EPS = 1e-9;
-
-function typeText(t: PoeType): string {
-  return t >= 3 ? `${POE_TYPES[t].standardName} Type ${t}` : POE_TYPES[t].standardName;
-}
 
 /** @internal Evaluate one PoE source with a precomputed plan context. */
 export function evaluateSwitchWith(ctx: PlanContext, src: PoeSource): SwitchEvaluation {
@@ -157,7 +153,7 @@ export function evaluateSwitchWith(ctx: PlanContext, src: PoeSource): SwitchEval
       const deviceName = devices[i].name;
       warnings.push(deferredField<PlanWarning, 'message'>(
         { code: 'port_type_too_low', severity: 'error', sourceId: src.id, deviceId: devices[i].id, message: '' }, 'message', () =>
-          `"${deviceName}" needs an ${typeText(needType)} port, but "${srcName}" has ${typeText(srcType)} ports.`));
+          `"${deviceName}" needs an ${poeTypeName(needType)} port, but "${srcName}" has ${poeTypeName(srcType)} ports.`));
     }
   }
   if (overBudget) {
@@ -185,7 +181,7 @@ export function evaluateSwitchWith(ctx: PlanContext, src: PoeSource): SwitchEval
     }
     const biggest = rows.reduce<PortRow | null>((m, r) => (m === null || r.reservedW > m.reservedW ? r : m), null);
     if (biggest !== null) {
-      into.push(`Or power "${biggest.deviceName}" (Class ${biggest.poeClass}) from its own ${typeText(biggest.poeType)} injector.`);
+      into.push(`Or power "${biggest.deviceName}" (Class ${biggest.poeClass}) from its own ${poeTypeName(biggest.poeType)} injector.`);
     }
   });
 

@@ -111,3 +111,8 @@ export function poeTypeForStandard(standard: PoeStandard): PoeType {
 export function lowestTypeOfStandard(standard: PoeStandard): PoeType {
   return standard === 'af' ? 1 : standard === 'at' ? 2 : 3;
 }
+
+/** A PoE type as installers name it: "802.3af", "802.3at", "802.3bt Type 3", "802.3bt Type 4". */
+export function poeTypeName(t: PoeType): string {
+  return t >= 3 ? `${POE_TYPES[t].standardName} Type ${t}` : POE_TYPES[t].standardName;
+}

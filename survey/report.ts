@@ -3,6 +3,7 @@
 import type { SiteEvaluation } from "./rules";
 import type { SiteInput } from "./model/site";
 import { formatLength } from "./units";
+import { plainWords, type PortSource } from "./plain-words";
 
 export interface ReportDevice {
   id: string;
@@ -10,6 +11,11 @@ export interface ReportDevice {
   kind: string;
   label: string;
   recommendation: string;
+  /**
+   * The device in everyday words (how it is powered, a power cut, the cable work), for the homeowner;
+   * `reasons` are then the technical detail. Absent in versions published before these were written.
+   */
+  plain?: string[];
   reasons: string[];
   warnings: string[];
   mustStayUp: boolean;
@@ -100,6 +106,14 @@ export function buildReportContent(input: ReportInput): ReportContent {
     if (list === undefined) warningsOf.set(w.deviceId, [w.message]);
     else if (!list.includes(w.message)) list.push(w.message);
   }
+  const siteDevices = new Map((site.devices ?? []).map((d) => [d.id, d]));
+  const sources = new Map((site.powerSources ?? []).map((s) => [s.id, s]));
+  const portOf = new Map<string, PortSource>();
+  for (const pl of ev.assignment.placements) {
+    const s = sources.get(pl.sourceId);
+    if (s !== undefined && (s.kind === "poe_switch" || s.kind === "injector")) portOf.set(pl.deviceId, { name: s.name, kind: s.kind });
+  }
+  const outageOf = new Map(ev.outage.devices.map((o) => [o.deviceId, o]));
   const runtimes = ev.outage.devices.filter((o) => o.mustStayUp && o.staysUp && o.minutes !== null).map((o) => o.minutes!);
   const rooms = (site.rooms ?? [])
     .map((r) => ({
@@ -114,6 +128,14 @@ export function buildReportContent(input: ReportInput): ReportContent {
           kind: d.kind,
           label: input.decisions[d.deviceId]?.label ?? d.label,
           recommendation: d.recommendation,
+          plain: plainWords({
+            evaluation: d,
+            cableAccess: siteDevices.get(d.deviceId)!.cableAccess,
+            inCloset: d.roomId === site.closetRoomId,
+            port: portOf.get(d.deviceId) ?? null,
+            outage: outageOf.get(d.deviceId),
+            units,
+          }),
           reasons: [...d.reasons],
           warnings: warningsOf.get(d.deviceId) ?? [],
           mustStayUp: d.mustStayUp,
@@ -230,6 +252,17 @@ const SCOPE_PARTS: readonly { key: keyof ReportContent; words: string }[] = [
   { key: "cautions", words: "the cautions" },
 ];
 
+/**
+ * A part of `now` as `published` can be compared with it: a version published before the devices'
+ * everyday words were kept is compared without them, so their arrival alone is not a change.
+ */
+function comparableWith(published: ReportContent, now: ReportContent, key: keyof ReportContent): unknown {
+  if (key !== "rooms") return now[key];
+  const hadPlain = published.rooms.some((r) => r.devices.some((d) => d.plain !== undefined));
+  if (hadPlain) return now.rooms;
+  return now.rooms.map((r) => ({ ...r, devices: r.devices.map(({ plain: _plain, ...d }) => d) }));
+}
+
 /** How the plan as it stands now differs from the last published version of its scope. */
 export interface ScopeDrift {
   sinceVersion: number;
@@ -249,7 +282,7 @@ export function scopeDrift(published: ReportContent, now: ReportContent, signed:
   const changes = diffReports(published, now);
   const devicesNamed = changes.added.length + changes.removed.length + changes.methodChanged.length > 0;
   const otherParts = SCOPE_PARTS.filter(({ key }) => {
-    if (canonicalJson(published[key]) === canonicalJson(now[key])) return false;
+    if (canonicalJson(published[key]) === canonicalJson(comparableWith(published, now, key))) return false;
     // The rooms are the devices: added, removed and re-powered ones are listed already.
     if (key === "rooms" && devicesNamed) return false;
     // The total is listed already; lines and prices without a new total are still a change.

@@ -8,8 +8,9 @@ import { Card } from "@/components/ui/card";
 import { AppText } from "@/components/ui/text";
 import { colors, space } from "@/constants/theme";
 import type { ReportView } from "@/hooks/queries/reports";
-import { lineAmount, reasonsBesideDecision, unpricedNote } from "@/survey/report";
+import { lineAmount, unpricedNote } from "@/survey/report";
 import { CommentBox } from "./comment-box";
+import { DeviceWords } from "./device-words";
 import { SignOffCard } from "./sign-off-card";
 
 const TONE = { poe: "good", poe_splitter: "copper", existing_outlet: "neutral", new_outlet: "warn", cannot_power: "danger" } as const;
@@ -60,9 +61,7 @@ export function ScopeView({ view, isClient }: { view: ReportView; isClient: bool
                 <Badge label={d.label} tone={TONE[d.recommendation as keyof typeof TONE] ?? "neutral"} />
               </View>
               {d.decision ? <Banner tone="info" title="Designer decision">{d.decision.reason}</Banner> : null}
-              {reasonsBesideDecision(d).map((r, i) => (
-                <AppText key={i} muted>{`• ${r}`}</AppText>
-              ))}
+              <DeviceWords device={d} />
               {d.warnings.map((w, i) => (
                 <AppText key={`w${i}`} color={colors.warn}>{`! ${w}`}</AppText>
               ))}

@@ -64,7 +64,10 @@ export function renderReportPdf(content: ReportContent, hash: string): Promise<B
       if (doc.y > doc.page.height - 140) doc.addPage();
       doc.font(FONT.bold).fontSize(11).fillColor(INK).text(`${d.name} — ${d.label}`, { width });
       if (d.decision) doc.font(FONT.bold).fontSize(9).fillColor(COPPER).text(`Designer decision: ${d.decision.reason} (${d.decision.by})`, { width });
-      for (const r of reasonsBesideDecision(d)) doc.font(FONT.regular).fontSize(9).fillColor(MUTED).text(`• ${r}`, { width, indent: 8 });
+      for (const w of d.plain ?? []) doc.font(FONT.regular).fontSize(10).fillColor(INK).text(w, { width, indent: 8 });
+      const reasons = reasonsBesideDecision(d);
+      if (d.plain !== undefined && reasons.length) doc.font(FONT.bold).fontSize(8).fillColor(MUTED).text("Technical detail, for your installer", { width, indent: 8 });
+      for (const r of reasons) doc.font(FONT.regular).fontSize(d.plain === undefined ? 9 : 8).fillColor(MUTED).text(`• ${r}`, { width, indent: 8 });
       for (const w of d.warnings) doc.font(FONT.bold).fontSize(9).fillColor(COPPER).text(`! ${w}`, { width, indent: 8 });
       doc.moveDown(0.4);
     }

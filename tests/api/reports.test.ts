@@ -92,6 +92,12 @@ describe("publishing", () => {
     expect(text).toContain(`${Math.round(evaluation.summary.poeWatts.reservedW * 10) / 10} W`);
     const firstPoe = evaluation.devices.find((d) => d.recommendation === "poe")!;
     expect(text).toContain(firstPoe.label);
+    // Each device in everyday words, with the rules' reasons as the technical detail after them.
+    const v1Content = (await client.get(`/api/reports/${v1.id}`).expect(200)).body.content;
+    const firstDevice = v1Content.rooms[0].devices[0];
+    const plainAt = text.indexOf(firstDevice.plain[0]);
+    expect(plainAt).toBeGreaterThan(0);
+    expect(text.indexOf("Technical detail, for your installer", plainAt)).toBeGreaterThan(plainAt);
     expect(text).toMatch(/licensed electrician/);
     expect(text).toMatch(/Local codes and the authority having jurisdiction decide/);
     expect(text).toContain("IEEE 802.3af/at/bt");

@@ -30,6 +30,18 @@ describe("the homeowner signs off on a phone", () => {
     const scope = (await designer.get(`/api/sites/${DEMO_SITE_ID}/reports`).expect(200)).body.reports[0];
     const content = (await designer.get(`/api/reports/${scope.id}`).expect(200)).body.content;
     const commentedId: string = content.rooms.flatMap((r: { devices: { id: string; name: string }[] }) => r.devices).find((d: { name: string }) => d.name === deviceName).id;
+
+    // Each device reads in everyday words first; the rules' technical reasons open on request.
+    const first: { name: string; plain: string[]; reasons: string[] } = content.rooms[0].devices[0];
+    await page.getByText(first.plain[0], { exact: true }).waitFor();
+    expect(await page.getByText(`• ${first.reasons[0]}`, { exact: true }).count()).toBe(0);
+    const detail = page.getByRole("button", { name: `Technical detail for ${first.name}` });
+    expect(await detail.getAttribute("aria-expanded")).toBe("false");
+    await detail.click();
+    await page.getByText(`• ${first.reasons[0]}`, { exact: true }).waitFor();
+    expect(await detail.getAttribute("aria-expanded")).toBe("true");
+    await screenshot(page, "scope-technical-detail-phone");
+
     await commentButton.click();
     await page.getByRole("radio", { name: "Ask for a change" }).click();
     await page.getByRole("textbox", { name: `Your comment on ${deviceName}` }).fill("Could this go a little higher on the wall?");
